@@ -1,0 +1,86 @@
+package dev.cairn.cli;
+
+import dev.cairn.gravity.BatchEvaluation;
+import dev.cairn.gravity.PolyhedronField;
+import dev.cairn.io.BodyModel;
+import dev.cairn.util.ParallelChunks;
+import dev.cairn.util.ProgressListener;
+import java.io.PrintWriter;
+import java.util.Locale;
+import java.util.SplittableRandom;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code cairn bench}: throughput of the polyhedron kernel in facet-evaluations per second (points × facets / time,
+ * potential + acceleration), single thread and all threads, and bytes of precomputed state per facet. Figures, not
+ * assertions: machines are shared and noisy, so speed targets are checked here and never in unit tests.
+ */
+@Command(name = "bench", mixinStandardHelpOptions = true,
+    description = "Measure polyhedron field throughput on a model (default: the demo body).")
+public final class BenchCommand implements Callable<Integer> {
+    @Mixin
+    ModelOptions model = new ModelOptions();
+
+    @Option(names = "--points", paramLabel = "N", description = "Field points per timed run (default ${DEFAULT-VALUE}).")
+    int points = 400;
+
+    @Option(names = "--repeat", paramLabel = "N", description = "Timed runs per configuration; the best counts "
+        + "(default ${DEFAULT-VALUE}).")
+    int repeat = 3;
+
+    @Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        BodyModel body = model.load(null);
+        if (!body.hasDensity()) {
+            body = dev.cairn.io.ModelLoader.load(model.modelPath(),
+                new dev.cairn.io.ModelRequest(model.units, 2000.0, null, null, null, null));
+        }
+        PolyhedronField field = body.polyhedronField();
+        PrintWriter out = spec.commandLine().getOut();
+        double r = 1.5 * body.massProperties().brillouinRadius();
+        double[] c = body.massProperties().centerOfMass();
+        double[] xyz = shellPoints(points, r, c, 42);
+        int all = ParallelChunks.defaultThreads();
+        out.printf(Locale.ROOT, "Model: %s, %d facets, %d vertices, %d edges%n", body.source(), field.facetCount(),
+            field.vertexCount(), field.edgeCount());
+        out.printf(Locale.ROOT, "Precomputed state: %.1f bytes/facet%n", field.bytesPerFacet());
+        // Warm-up so the JIT has compiled the kernel before timing.
+        BatchEvaluation.evaluate(field, shellPoints(Math.max(50, points / 4), r, c, 7), false, all,
+            ProgressListener.NONE);
+        for (int threads : new int[] {1, all}) {
+            double best = Double.POSITIVE_INFINITY;
+            for (int k = 0; k < repeat; k++) {
+                long t0 = System.nanoTime();
+                BatchEvaluation.evaluate(field, xyz, false, threads, ProgressListener.NONE);
+                best = Math.min(best, (System.nanoTime() - t0) / 1e9);
+            }
+            double rate = (double) points * field.facetCount() / best;
+            out.printf(Locale.ROOT, "threads %d: %d points in %.3f s = %.1f M facet-evaluations/s (%.1f M per thread)%n",
+                threads, points, best, rate / 1e6, rate / 1e6 / threads);
+        }
+        out.flush();
+        return 0;
+    }
+
+    /** {@code n} seeded random points on the sphere of radius {@code r} about {@code c}. */
+    static double[] shellPoints(int n, double r, double[] c, long seed) {
+        SplittableRandom rnd = new SplittableRandom(seed);
+        double[] xyz = new double[3 * n];
+        for (int i = 0; i < n; i++) {
+            double z = 2 * rnd.nextDouble() - 1;
+            double phi = 2 * Math.PI * rnd.nextDouble();
+            double s = Math.sqrt(1 - z * z);
+            xyz[3 * i] = c[0] + r * s * Math.cos(phi);
+            xyz[3 * i + 1] = c[1] + r * s * Math.sin(phi);
+            xyz[3 * i + 2] = c[2] + r * z;
+        }
+        return xyz;
+    }
+}

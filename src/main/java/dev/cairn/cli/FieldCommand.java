@@ -1,0 +1,110 @@
+package dev.cairn.cli;
+
+import dev.cairn.gravity.BatchEvaluation;
+import dev.cairn.gravity.FieldModel;
+import dev.cairn.gravity.FieldSample;
+import dev.cairn.gravity.Location;
+import dev.cairn.io.AtomicFiles;
+import dev.cairn.io.BodyModel;
+import dev.cairn.io.PointsCsv;
+import dev.cairn.util.ParallelChunks;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code cairn field}: the field of a model at points read from CSV. */
+@Command(name = "field", mixinStandardHelpOptions = true,
+    description = {"Evaluate the gravity field at points given in a CSV file (x,y,z in metres, model frame).",
+        "Output CSV: potential U > 0 (m^2/s^2), acceleration = grad U (m/s^2), Laplacian (1/s^2), location,",
+        "and with --gradient the gravity-gradient tensor (1/s^2)."})
+public final class FieldCommand implements Callable<Integer> {
+    @Mixin
+    ModelOptions model = new ModelOptions();
+
+    @Option(names = "--points", required = true, paramLabel = "FILE", description = "CSV of field points x,y,z in m.")
+    Path points;
+
+    @Option(names = "--gradient", description = "Also write the gravity-gradient tensor (6 unique components).")
+    boolean gradient;
+
+    @Option(names = "--out", paramLabel = "FILE", description = "Output CSV (default: standard output).")
+    Path out;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all processors).")
+    int threads = ParallelChunks.defaultThreads();
+
+    @Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    /** The output header, a contract other tools rely on. */
+    public static final String HEADER = "x_m,y_m,z_m,potential_m2_s2,ax_m_s2,ay_m_s2,az_m_s2,laplacian_s2,location";
+    /** Extra header columns with {@code --gradient}. */
+    public static final String GRADIENT_HEADER = ",gxx_s2,gxy_s2,gxz_s2,gyy_s2,gyz_s2,gzz_s2";
+
+    @Override
+    public Integer call() throws IOException {
+        BodyModel body = model.load(null);
+        PrintWriter err = spec.commandLine().getErr();
+        for (String w : body.warnings()) {
+            err.println("cairn: warning: " + w);
+        }
+        FieldModel field = fieldModel(body);
+        double[] xyz = PointsCsv.read(points);
+        double[] res;
+        try (ProgressBar bar = new ProgressBar("field")) {
+            res = BatchEvaluation.evaluate(field, xyz, gradient, Math.max(1, threads), bar);
+        }
+        if (out == null) {
+            PrintWriter o = spec.commandLine().getOut();
+            StringBuilder sb = new StringBuilder();
+            write(sb, xyz, res);
+            o.print(sb);
+            o.flush();
+        } else {
+            AtomicFiles.write(out, os -> writeTo(os, xyz, res));
+            err.println("cairn: wrote " + (xyz.length / 3) + " points to " + out);
+        }
+        return 0;
+    }
+
+    /** The field model for this command (the polyhedron; later issues add choices). */
+    FieldModel fieldModel(BodyModel body) {
+        return body.polyhedronField();
+    }
+
+    private void writeTo(OutputStream os, double[] xyz, double[] res) throws IOException {
+        StringBuilder sb = new StringBuilder(1 << 16);
+        write(sb, xyz, res);
+        os.write(sb.toString().getBytes(StandardCharsets.UTF_8));
+    }
+
+    private void write(StringBuilder sb, double[] xyz, double[] res) {
+        sb.append(HEADER);
+        if (gradient) {
+            sb.append(GRADIENT_HEADER);
+        }
+        sb.append('\n');
+        int n = xyz.length / 3;
+        for (int i = 0; i < n; i++) {
+            int o = i * FieldSample.SIZE;
+            sb.append(xyz[3 * i]).append(',').append(xyz[3 * i + 1]).append(',').append(xyz[3 * i + 2]);
+            for (int k = FieldSample.U; k <= FieldSample.LAPLACIAN; k++) {
+                sb.append(',').append(res[o + k]);
+            }
+            sb.append(',').append(Location.fromCode(res[o + FieldSample.LOCATION]).word());
+            if (gradient) {
+                for (int k = FieldSample.GXX; k <= FieldSample.GZZ; k++) {
+                    sb.append(',').append(res[o + k]);
+                }
+            }
+            sb.append('\n');
+        }
+    }
+}

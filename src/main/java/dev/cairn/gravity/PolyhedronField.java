@@ -1,0 +1,401 @@
+package dev.cairn.gravity;
+
+import dev.cairn.mesh.EdgeTable;
+import dev.cairn.mesh.TriangleMesh;
+
+/**
+ * Exact gravity field of a constant-density closed polyhedron.
+ *
+ * <p>Method: Werner, R.A. &amp; Scheeres, D.J. (1997) "Exterior gravitation of a polyhedron derived and compared with
+ * harmonic and mascon gravitation representations", Celest. Mech. Dyn. Astron. 65:313–344 (eqs. for U, ∇U, ∇∇U
+ * and ∇²U), with the facet solid angle of Van Oosterom, A. &amp; Strackee, J. (1983) "The solid angle of a plane
+ * triangle", IEEE Trans. Biomed. Eng. BME-30(2):125–126:
+ * <pre>
+ *   U    =  (Gρ/2) Σ_e r_e·E_e·r_e L_e − (Gρ/2) Σ_f r_f·F_f·r_f ω_f
+ *   ∇U   = −Gρ Σ_e E_e·r_e L_e + Gρ Σ_f F_f·r_f ω_f
+ *   ∇∇U  =  Gρ Σ_e E_e L_e − Gρ Σ_f F_f ω_f,      ∇²U = −Gρ Σ_f ω_f
+ * </pre>
+ * with {@code r} from the field point to a vertex of the edge or facet, {@code F_f = n_f n_fᵀ},
+ * {@code E_e = n_A n_ABᵀ + n_B n_BAᵀ}, {@code L_e = ln((a+b+e)/(a+b−e))} and
+ * {@code ω_f = 2 atan2(r1·(r2×r3), R1R2R3 + R1 r2·r3 + R2 r3·r1 + R3 r1·r2)}.
+ *
+ * <p>Conventions: U &gt; 0, g = ∇U (toward the body); SI units; model frame. The field is exact and finite outside,
+ * inside and on the surface:
+ * <ul>
+ * <li>On an edge or a vertex {@code a+b−e = 0} and {@code L_e} diverges, but {@code E_e·r_e = 0} there: the term is
+ *     dropped, which is its limit. Close to an edge {@code a+b−e} is computed without cancellation as
+ *     {@code 2|r_a×d|²/((ab − r_a·r_b)(a+b+e))}, {@code d} the edge vector.</li>
+ * <li>Exactly on a facet its own ω is ±2π by the sign of a rounded zero; a point within
+ *     {@link #ON_FACET_TOLERANCE} (relative) of a facet's plane and inside it is classified {@link Location#SURFACE}
+ *     and that facet's ω set to 0 (its {@code F_f·r_f} vanishes there anyway), so Σω = 2π on a facet interior.</li>
+ * <li>Coordinates are stored relative to the vertex centroid and field points shifted likewise, which limits
+ *     round-off far away.</li>
+ * </ul>
+ * The gradient tensor diverges (logarithmically) at edges and vertices, as it physically does.
+ *
+ * <p>Precomputed state: per facet 3 vertex indices and the 6 unique components of F_f; per edge 2 vertex indices,
+ * its length and the 6 unique components of the symmetric E_e; per vertex its 3 coordinates. Per field point,
+ * each vertex's offset and distance and each edge's log term are computed once.
+ */
+public final class PolyhedronField implements FieldModel {
+    /** Relative distance from a facet's plane (|r1·(r2×r3)| / (R1R2R3)) below which a point is on that facet. */
+    public static final double ON_FACET_TOLERANCE = 1e-10;
+
+    private final int vertexCount;
+    private final int facetCount;
+    private final int edgeCount;
+    private final double density;
+    private final double volume;
+    private final double ox;
+    private final double oy;
+    private final double oz;
+    /** Vertex coordinates relative to (ox, oy, oz), m. */
+    private final double[] pv;
+    /** Facet vertex indices. */
+    private final int[] fv;
+    /** F_f unique components xx, xy, xz, yy, yz, zz. */
+    private final double[] fdy;
+    /** Edge vertex indices. */
+    private final int[] ev;
+    /** E_e unique components xx, xy, xz, yy, yz, zz. */
+    private final double[] edy;
+    /** Edge lengths, m. */
+    private final double[] elen;
+
+    /**
+     * @param mesh    closed, consistently outward-oriented mesh without zero-area facets, metres (check it with
+     *                {@link dev.cairn.mesh.MeshInspector#requireFitForGravity} first)
+     * @param density kg/m^3
+     * @throws IllegalArgumentException if an edge does not have exactly two oppositely oriented facets
+     */
+    public PolyhedronField(TriangleMesh mesh, double density) {
+        this(mesh, EdgeTable.of(mesh), density);
+    }
+
+    /** As {@link #PolyhedronField(TriangleMesh, double)} with an edge table already built for {@code mesh}. */
+    public PolyhedronField(TriangleMesh mesh, EdgeTable edges, double density) {
+        this.density = density;
+        this.vertexCount = mesh.vertexCount();
+        this.facetCount = mesh.facetCount();
+        this.edgeCount = edges.edgeCount();
+        double[] xyz = mesh.xyz();
+        double sx = 0;
+        double sy = 0;
+        double sz = 0;
+        for (int i = 0; i < xyz.length; i += 3) {
+            sx += xyz[i];
+            sy += xyz[i + 1];
+            sz += xyz[i + 2];
+        }
+        ox = sx / vertexCount;
+        oy = sy / vertexCount;
+        oz = sz / vertexCount;
+        pv = new double[xyz.length];
+        for (int i = 0; i < xyz.length; i += 3) {
+            pv[i] = xyz[i] - ox;
+            pv[i + 1] = xyz[i + 1] - oy;
+            pv[i + 2] = xyz[i + 2] - oz;
+        }
+        fv = mesh.tri().clone();
+        double[] normals = new double[3 * facetCount];
+        fdy = new double[6 * facetCount];
+        double vol6 = 0;
+        for (int f = 0; f < facetCount; f++) {
+            int a = 3 * fv[3 * f];
+            int b = 3 * fv[3 * f + 1];
+            int c = 3 * fv[3 * f + 2];
+            double ux = pv[b] - pv[a];
+            double uy = pv[b + 1] - pv[a + 1];
+            double uz = pv[b + 2] - pv[a + 2];
+            double vx = pv[c] - pv[a];
+            double vy = pv[c + 1] - pv[a + 1];
+            double vz = pv[c + 2] - pv[a + 2];
+            double nx = uy * vz - uz * vy;
+            double ny = uz * vx - ux * vz;
+            double nz = ux * vy - uy * vx;
+            vol6 += pv[a] * nx + pv[a + 1] * ny + pv[a + 2] * nz;
+            double len = Math.sqrt(nx * nx + ny * ny + nz * nz);
+            if (!(len > 0)) {
+                throw new IllegalArgumentException("facet " + f + " has zero area");
+            }
+            nx /= len;
+            ny /= len;
+            nz /= len;
+            normals[3 * f] = nx;
+            normals[3 * f + 1] = ny;
+            normals[3 * f + 2] = nz;
+            putDyad(fdy, 6 * f, nx, ny, nz, nx, ny, nz);
+        }
+        volume = vol6 / 6.0;
+        ev = new int[2 * edgeCount];
+        edy = new double[6 * edgeCount];
+        elen = new double[edgeCount];
+        for (int e = 0; e < edgeCount; e++) {
+            int fa = edges.facetForward(e);
+            int fb = edges.facetBackward(e);
+            if (edges.facetCount(e) != 2 || fa < 0 || fb < 0) {
+                throw new IllegalArgumentException("edge " + edges.v0(e) + "-" + edges.v1(e)
+                    + " is not shared by exactly two oppositely oriented facets");
+            }
+            int i = edges.v0(e);
+            int j = edges.v1(e);
+            ev[2 * e] = i;
+            ev[2 * e + 1] = j;
+            double dx = pv[3 * j] - pv[3 * i];
+            double dy = pv[3 * j + 1] - pv[3 * i + 1];
+            double dz = pv[3 * j + 2] - pv[3 * i + 2];
+            elen[e] = Math.sqrt(dx * dx + dy * dy + dz * dz);
+            // Facet A runs i→j: edge normal n_ij^A = unit(d × n_A). Facet B runs j→i: n_ji^B = unit(−d × n_B).
+            double[] sym = new double[6];
+            addEdgeDyad(sym, normals, fa, dx, dy, dz);
+            addEdgeDyad(sym, normals, fb, -dx, -dy, -dz);
+            System.arraycopy(sym, 0, edy, 6 * e, 6);
+        }
+    }
+
+    private static void addEdgeDyad(double[] sym, double[] normals, int f, double dx, double dy, double dz) {
+        double nx = normals[3 * f];
+        double ny = normals[3 * f + 1];
+        double nz = normals[3 * f + 2];
+        double mx = dy * nz - dz * ny;
+        double my = dz * nx - dx * nz;
+        double mz = dx * ny - dy * nx;
+        double ml = Math.sqrt(mx * mx + my * my + mz * mz);
+        mx /= ml;
+        my /= ml;
+        mz /= ml;
+        // E = n mᵀ is symmetric only in sum over both facets; store the symmetric part (n mᵀ + m nᵀ)/2.
+        sym[0] += nx * mx;
+        sym[1] += 0.5 * (nx * my + ny * mx);
+        sym[2] += 0.5 * (nx * mz + nz * mx);
+        sym[3] += ny * my;
+        sym[4] += 0.5 * (ny * mz + nz * my);
+        sym[5] += nz * mz;
+    }
+
+    private static void putDyad(double[] d, int o, double ax, double ay, double az, double bx, double by,
+                                double bz) {
+        d[o] = ax * bx;
+        d[o + 1] = ax * by;
+        d[o + 2] = ax * bz;
+        d[o + 3] = ay * by;
+        d[o + 4] = ay * bz;
+        d[o + 5] = az * bz;
+    }
+
+    /** Density, kg/m^3. */
+    public double density() {
+        return density;
+    }
+
+    /** Enclosed volume, m^3. */
+    public double volume() {
+        return volume;
+    }
+
+    public int facetCount() {
+        return facetCount;
+    }
+
+    public int vertexCount() {
+        return vertexCount;
+    }
+
+    public int edgeCount() {
+        return edgeCount;
+    }
+
+    /** Bytes of precomputed state per facet (vertex, facet and edge arrays), for the benchmark report. */
+    public double bytesPerFacet() {
+        long bytes = 8L * pv.length + 4L * fv.length + 8L * fdy.length + 4L * ev.length + 8L * edy.length
+            + 8L * elen.length;
+        return (double) bytes / facetCount;
+    }
+
+    @Override
+    public double gm() {
+        return Constants.G * density * volume;
+    }
+
+    @Override
+    public String describe() {
+        return "constant-density polyhedron, " + facetCount + " facets, " + density + " kg/m^3";
+    }
+
+    @Override
+    public FieldEvaluator newEvaluator() {
+        return new Evaluator();
+    }
+
+    /** Per-thread scratch: vertex offsets and distances for the current field point. */
+    private final class Evaluator implements FieldEvaluator {
+        private final double[] r = new double[3 * vertexCount];
+        private final double[] rn = new double[vertexCount];
+
+        @Override
+        public void evaluate(double x, double y, double z, boolean gradient, double[] out, int o) {
+            final double px = x - ox;
+            final double py = y - oy;
+            final double pz = z - oz;
+            final double[] r = this.r;
+            final double[] rn = this.rn;
+            final double[] pv = PolyhedronField.this.pv;
+            for (int i = 0, k = 0; i < vertexCount; i++, k += 3) {
+                double rx = pv[k] - px;
+                double ry = pv[k + 1] - py;
+                double rz = pv[k + 2] - pz;
+                r[k] = rx;
+                r[k + 1] = ry;
+                r[k + 2] = rz;
+                rn[i] = Math.sqrt(rx * rx + ry * ry + rz * rz);
+            }
+            double u = 0;
+            double gx = 0;
+            double gy = 0;
+            double gz = 0;
+            double txx = 0;
+            double txy = 0;
+            double txz = 0;
+            double tyy = 0;
+            double tyz = 0;
+            double tzz = 0;
+            final int[] ev = PolyhedronField.this.ev;
+            final double[] edy = PolyhedronField.this.edy;
+            final double[] elen = PolyhedronField.this.elen;
+            for (int e = 0; e < edgeCount; e++) {
+                int i = ev[2 * e];
+                int j = ev[2 * e + 1];
+                double a = rn[i];
+                double b = rn[j];
+                double len = elen[e];
+                double s = a + b;
+                int ki = 3 * i;
+                int kj = 3 * j;
+                double rix = r[ki];
+                double riy = r[ki + 1];
+                double riz = r[ki + 2];
+                double rjx = r[kj];
+                double rjy = r[kj + 1];
+                double rjz = r[kj + 2];
+                double dot = rix * rjx + riy * rjy + riz * rjz;
+                double den;
+                if (dot < 0) {
+                    // Near the edge's interior: a+b-e = 2|r_i × d|^2 / ((ab - r_i·r_j)(a+b+e)), no cancellation.
+                    double dx = rjx - rix;
+                    double dy = rjy - riy;
+                    double dz = rjz - riz;
+                    double cx = riy * dz - riz * dy;
+                    double cy = riz * dx - rix * dz;
+                    double cz = rix * dy - riy * dx;
+                    den = 2 * (cx * cx + cy * cy + cz * cz) / ((a * b - dot) * (s + len));
+                } else {
+                    den = s - len;
+                }
+                if (!(den > 0)) {
+                    continue; // on the edge or its vertex: E_e·r_e = 0 there, the term's limit is 0
+                }
+                double le = Math.log((s + len) / den);
+                int q = 6 * e;
+                double exx = edy[q];
+                double exy = edy[q + 1];
+                double exz = edy[q + 2];
+                double eyy = edy[q + 3];
+                double eyz = edy[q + 4];
+                double ezz = edy[q + 5];
+                double erx = exx * rix + exy * riy + exz * riz;
+                double ery = exy * rix + eyy * riy + eyz * riz;
+                double erz = exz * rix + eyz * riy + ezz * riz;
+                u += (rix * erx + riy * ery + riz * erz) * le;
+                gx -= erx * le;
+                gy -= ery * le;
+                gz -= erz * le;
+                if (gradient) {
+                    txx += exx * le;
+                    txy += exy * le;
+                    txz += exz * le;
+                    tyy += eyy * le;
+                    tyz += eyz * le;
+                    tzz += ezz * le;
+                }
+            }
+            double omegaSum = 0;
+            boolean onSurface = false;
+            final int[] fv = PolyhedronField.this.fv;
+            final double[] fdy = PolyhedronField.this.fdy;
+            for (int f = 0; f < facetCount; f++) {
+                int i1 = fv[3 * f];
+                int i2 = fv[3 * f + 1];
+                int i3 = fv[3 * f + 2];
+                int k1 = 3 * i1;
+                int k2 = 3 * i2;
+                int k3 = 3 * i3;
+                double r1x = r[k1];
+                double r1y = r[k1 + 1];
+                double r1z = r[k1 + 2];
+                double r2x = r[k2];
+                double r2y = r[k2 + 1];
+                double r2z = r[k2 + 2];
+                double r3x = r[k3];
+                double r3y = r[k3 + 1];
+                double r3z = r[k3 + 2];
+                double n1 = rn[i1];
+                double n2 = rn[i2];
+                double n3 = rn[i3];
+                double num = r1x * (r2y * r3z - r2z * r3y) + r1y * (r2z * r3x - r2x * r3z)
+                    + r1z * (r2x * r3y - r2y * r3x);
+                double prod = n1 * n2 * n3;
+                double den = prod + n1 * (r2x * r3x + r2y * r3y + r2z * r3z)
+                    + n2 * (r3x * r1x + r3y * r1y + r3z * r1z) + n3 * (r1x * r2x + r1y * r2y + r1z * r2z);
+                double omega;
+                if (Math.abs(num) <= ON_FACET_TOLERANCE * prod && den <= ON_FACET_TOLERANCE * prod) {
+                    onSurface = true; // in the facet's plane and within it (interior, edge or vertex)
+                    continue;
+                }
+                omega = 2 * Math.atan2(num, den);
+                int q = 6 * f;
+                double fxx = fdy[q];
+                double fxy = fdy[q + 1];
+                double fxz = fdy[q + 2];
+                double fyy = fdy[q + 3];
+                double fyz = fdy[q + 4];
+                double fzz = fdy[q + 5];
+                double frx = fxx * r1x + fxy * r1y + fxz * r1z;
+                double fry = fxy * r1x + fyy * r1y + fyz * r1z;
+                double frz = fxz * r1x + fyz * r1y + fzz * r1z;
+                u -= (r1x * frx + r1y * fry + r1z * frz) * omega;
+                gx += frx * omega;
+                gy += fry * omega;
+                gz += frz * omega;
+                omegaSum += omega;
+                if (gradient) {
+                    txx -= fxx * omega;
+                    txy -= fxy * omega;
+                    txz -= fxz * omega;
+                    tyy -= fyy * omega;
+                    tyz -= fyz * omega;
+                    tzz -= fzz * omega;
+                }
+            }
+            double gr = Constants.G * density;
+            out[o + FieldSample.U] = 0.5 * gr * u;
+            out[o + FieldSample.AX] = gr * gx;
+            out[o + FieldSample.AY] = gr * gy;
+            out[o + FieldSample.AZ] = gr * gz;
+            out[o + FieldSample.LAPLACIAN] = -gr * omegaSum;
+            if (gradient) {
+                out[o + FieldSample.GXX] = gr * txx;
+                out[o + FieldSample.GXY] = gr * txy;
+                out[o + FieldSample.GXZ] = gr * txz;
+                out[o + FieldSample.GYY] = gr * tyy;
+                out[o + FieldSample.GYZ] = gr * tyz;
+                out[o + FieldSample.GZZ] = gr * tzz;
+            } else {
+                for (int k = FieldSample.GXX; k <= FieldSample.GZZ; k++) {
+                    out[o + k] = Double.NaN;
+                }
+            }
+            Location loc = onSurface ? Location.SURFACE : omegaSum > 2 * Math.PI ? Location.INSIDE : Location.OUTSIDE;
+            out[o + FieldSample.LOCATION] = loc.code();
+        }
+    }
+}

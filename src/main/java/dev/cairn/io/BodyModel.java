@@ -1,0 +1,141 @@
+package dev.cairn.io;
+
+import dev.cairn.gravity.Constants;
+import dev.cairn.gravity.PolyhedronField;
+import dev.cairn.mass.MassProperties;
+import dev.cairn.mass.MassPropertiesCalculator;
+import dev.cairn.mesh.EdgeTable;
+import dev.cairn.mesh.MeshInspector;
+import dev.cairn.mesh.MeshReport;
+import dev.cairn.mesh.TriangleMesh;
+import dev.cairn.rotation.SpinState;
+import java.nio.file.Path;
+import java.util.List;
+
+/**
+ * A loaded shape model with everything the commands need: the mesh in metres (outward-oriented when it could be
+ * fixed), its check report, its density (if known), mass properties and spin state.
+ */
+public final class BodyModel {
+    private final Path source;
+    private final TriangleMesh mesh;
+    private final EdgeTable edges;
+    private final MeshReport report;
+    private final List<String> warnings;
+    private final String lengthUnit;
+    private final double density;
+    private final SpinState spin;
+    private final ModelSidecar sidecar;
+    private MassProperties massProperties;
+    private PolyhedronField field;
+
+    BodyModel(Path source, TriangleMesh mesh, EdgeTable edges, MeshReport report, List<String> warnings,
+              String lengthUnit, double density, SpinState spin, ModelSidecar sidecar) {
+        this.source = source;
+        this.mesh = mesh;
+        this.edges = edges;
+        this.report = report;
+        this.warnings = warnings;
+        this.lengthUnit = lengthUnit;
+        this.density = density;
+        this.spin = spin;
+        this.sidecar = sidecar;
+    }
+
+    /** The OBJ file. */
+    public Path source() {
+        return source;
+    }
+
+    /** Display name: the sidecar's name or the file's base name. */
+    public String name() {
+        if (sidecar != null && sidecar.name != null) {
+            return sidecar.name;
+        }
+        String fn = source.getFileName().toString();
+        int dot = fn.lastIndexOf('.');
+        return dot > 0 ? fn.substring(0, dot) : fn;
+    }
+
+    /** Mesh in metres; flipped to face outward when the file's facets faced inward. */
+    public TriangleMesh mesh() {
+        return mesh;
+    }
+
+    public EdgeTable edges() {
+        return edges;
+    }
+
+    public MeshReport report() {
+        return report;
+    }
+
+    /** Warnings met while loading (non-planar polygons, flipped orientation, unusual density, ...). */
+    public List<String> warnings() {
+        return warnings;
+    }
+
+    /** Length unit of the OBJ file ("m" or "km"). */
+    public String lengthUnit() {
+        return lengthUnit;
+    }
+
+    /** True when a density, mass or GM was given. */
+    public boolean hasDensity() {
+        return !Double.isNaN(density);
+    }
+
+    /** Density, kg/m^3 (NaN when none was given). */
+    public double density() {
+        return density;
+    }
+
+    public SpinState spin() {
+        return spin;
+    }
+
+    /** The sidecar read beside the model, or null. */
+    public ModelSidecar sidecar() {
+        return sidecar;
+    }
+
+    /** Mass properties at the model's density (or 1 kg/m^3 when none was given: mass then equals volume). */
+    public synchronized MassProperties massProperties() {
+        if (massProperties == null) {
+            massProperties = MassPropertiesCalculator.compute(mesh, hasDensity() ? density : 1.0);
+        }
+        return massProperties;
+    }
+
+    /** {@code G·M}, m^3/s^2 (NaN without a density). */
+    public double gm() {
+        return hasDensity() ? Constants.G * density * massProperties().volume() : Double.NaN;
+    }
+
+    /**
+     * The constant-density polyhedron field of this model.
+     *
+     * @throws InputException when the surface is not fit for the polyhedron field or no density was given
+     */
+    public synchronized PolyhedronField polyhedronField() {
+        if (field == null) {
+            requireFitForGravity();
+            requireDensity();
+            field = new PolyhedronField(mesh, edges, density);
+        }
+        return field;
+    }
+
+    /** Throws a one-line {@link InputException} when the surface is not closed, consistent and non-degenerate. */
+    public void requireFitForGravity() {
+        MeshInspector.requireFitForGravity(mesh, report, source.toString(), new java.util.ArrayList<>());
+    }
+
+    /** Throws a one-line {@link InputException} when no density, mass or GM is known. */
+    public void requireDensity() {
+        if (!hasDensity()) {
+            throw new InputException(source + ": no density known: give --density, --gm or --mass, or put "
+                + "density_kg_m3 in " + ModelSidecar.pathFor(source).getFileName());
+        }
+    }
+}

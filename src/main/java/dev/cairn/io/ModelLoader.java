@@ -1,0 +1,135 @@
+package dev.cairn.io;
+
+import dev.cairn.gravity.Constants;
+import dev.cairn.mass.MassPropertiesCalculator;
+import dev.cairn.mesh.EdgeTable;
+import dev.cairn.mesh.MeshInspector;
+import dev.cairn.mesh.MeshReport;
+import dev.cairn.mesh.ObjReader;
+import dev.cairn.mesh.TriangleMesh;
+import dev.cairn.rotation.SpinState;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Loads a shape model: reads {@code NAME.obj} (and {@code NAME.json} beside it when present), converts to metres,
+ * inspects the mesh, turns an inward-facing closed surface outward, and settles density and spin from the request,
+ * then the sidecar, then defaults (no density; no spin).
+ */
+public final class ModelLoader {
+    /** Densities outside this range (kg/m^3) draw a warning (Carry 2012, Planet. Space Sci. 73:98–118, widened). */
+    public static final double DENSITY_WARN_LOW = 100;
+    public static final double DENSITY_WARN_HIGH = 8000;
+
+    private ModelLoader() {
+    }
+
+    /** Metres per model unit for "m" or "km". */
+    public static double metresPer(String unit, String where) {
+        if ("m".equals(unit)) {
+            return 1.0;
+        }
+        if ("km".equals(unit)) {
+            return 1000.0;
+        }
+        throw new InputException(where + ": unknown length unit '" + unit + "' (use m or km)");
+    }
+
+    /** Loads {@code obj} with the given request. */
+    public static BodyModel load(Path obj, ModelRequest req) {
+        if (!Files.isRegularFile(obj)) {
+            throw new InputException(obj + ": no such file");
+        }
+        Path sidecarPath = ModelSidecar.pathFor(obj);
+        ModelSidecar side = Files.isRegularFile(sidecarPath) && !sidecarPath.equals(obj)
+            ? ModelSidecar.read(sidecarPath) : null;
+        String unit = req.lengthUnit() != null ? req.lengthUnit()
+            : side != null && side.lengthUnit != null ? side.lengthUnit : "m";
+        double scale = metresPer(unit, req.lengthUnit() != null ? "--units" : sidecarPath.toString());
+        ObjReader.Result read = ObjReader.read(obj, scale);
+        List<String> warnings = new ArrayList<>(read.warnings());
+        TriangleMesh mesh = read.mesh();
+        EdgeTable edges = EdgeTable.of(mesh);
+        MeshReport report = MeshInspector.inspect(mesh, edges);
+        if (report.inwardOriented()) {
+            warnings.add(obj + ": facets face inward (signed volume " + report.signedVolume()
+                + " m^3); all facets flipped to face outward");
+            mesh = mesh.flipped();
+            edges = EdgeTable.of(mesh);
+            report = MeshInspector.inspect(mesh, edges);
+        }
+        double density = resolveDensity(obj, req, side, sidecarPath, mesh, warnings);
+        SpinState spin = resolveSpin(req, side, sidecarPath);
+        return new BodyModel(obj, mesh, edges, report, List.copyOf(warnings), unit, density, spin, side);
+    }
+
+    private static double resolveDensity(Path obj, ModelRequest req, ModelSidecar side, Path sidecarPath,
+                                         TriangleMesh mesh, List<String> warnings) {
+        int given = (req.density() != null ? 1 : 0) + (req.gm() != null ? 1 : 0) + (req.mass() != null ? 1 : 0);
+        if (given > 1) {
+            throw new InputException("give only one of --density, --gm and --mass");
+        }
+        Double density = req.density();
+        Double gm = req.gm();
+        Double mass = req.mass();
+        String where = "command line";
+        if (given == 0 && side != null) {
+            int s = (side.densityKgM3 != null ? 1 : 0) + (side.gmM3S2 != null ? 1 : 0) + (side.massKg != null ? 1 : 0);
+            if (s > 1) {
+                throw new InputException(sidecarPath + ": give only one of density_kg_m3, gm_m3_s2 and mass_kg");
+            }
+            density = side.densityKgM3;
+            gm = side.gmM3S2;
+            mass = side.massKg;
+            where = sidecarPath.toString();
+        }
+        if (density == null && gm == null && mass == null) {
+            return Double.NaN;
+        }
+        double value = density != null ? density : gm != null ? gm : mass;
+        if (!(value > 0) || !Double.isFinite(value)) {
+            String what = density != null ? "density" : gm != null ? "GM" : "mass";
+            throw new InputException(where + ": " + what + " must be a positive number, got " + value);
+        }
+        double rho;
+        if (density != null) {
+            rho = density;
+        } else {
+            double volume = MassPropertiesCalculator.unitDensity(mesh).volume();
+            if (!(volume > 0)) {
+                throw new InputException(obj + ": cannot derive a density from GM or mass: the enclosed volume is "
+                    + volume + " m^3 (is the surface closed?)");
+            }
+            rho = gm != null ? gm / (Constants.G * volume) : mass / volume;
+        }
+        if (rho < DENSITY_WARN_LOW || rho > DENSITY_WARN_HIGH) {
+            warnings.add(where + ": density " + String.format(java.util.Locale.ROOT, "%.4g", rho)
+                + " kg/m^3 is outside the usual 100-8000 kg/m^3 of small bodies; check the units");
+        }
+        return rho;
+    }
+
+    private static SpinState resolveSpin(ModelRequest req, ModelSidecar side, Path sidecarPath) {
+        Double period = req.spinPeriod() != null ? req.spinPeriod() : side != null ? side.spinPeriodS : null;
+        double[] axis = req.spinAxis() != null ? req.spinAxis()
+            : side != null && side.spinAxis != null ? side.spinAxis : new double[] {0, 0, 1};
+        if (axis.length != 3) {
+            throw new InputException(sidecarPath + ": spin_axis must have 3 components");
+        }
+        if (period == null) {
+            return new SpinState(Double.POSITIVE_INFINITY, axis);
+        }
+        if (!(period > 0)) {
+            throw new InputException((req.spinPeriod() != null ? "--spin-period" : sidecarPath.toString())
+                + ": spin period must be positive, got " + period);
+        }
+        try {
+            return new SpinState(period, axis);
+        } catch (IllegalArgumentException e) {
+            throw new InputException((req.spinAxis() != null ? "--spin-axis" : sidecarPath.toString()) + ": "
+                + e.getMessage());
+        }
+    }
+}

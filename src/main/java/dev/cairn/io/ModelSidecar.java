@@ -1,0 +1,72 @@
+package dev.cairn.io;
+
+import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
+import com.fasterxml.jackson.annotation.JsonProperty;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+
+/**
+ * The optional JSON file {@code NAME.json} beside a model {@code NAME.obj}: the model's length unit, its density or
+ * mass or GM, and its spin state. Every key is optional; command-line options override them. Keys are documented in
+ * {@code docs/model-sidecar.md}. Unknown keys are refused (a misspelt key would otherwise be silently ignored),
+ * except those starting with {@code "_"} or named {@code description}/{@code note}, which are free text.
+ */
+@JsonIgnoreProperties(value = {"_comment", "_note"}, ignoreUnknown = false)
+public final class ModelSidecar {
+    @JsonProperty("name")
+    public String name;
+    @JsonProperty("description")
+    public String description;
+    @JsonProperty("note")
+    public String note;
+    /** "m" or "km": unit of the OBJ coordinates. */
+    @JsonProperty("length_unit")
+    public String lengthUnit;
+    @JsonProperty("density_kg_m3")
+    public Double densityKgM3;
+    @JsonProperty("gm_m3_s2")
+    public Double gmM3S2;
+    @JsonProperty("mass_kg")
+    public Double massKg;
+    /** Sidereal spin period, seconds. */
+    @JsonProperty("spin_period_s")
+    public Double spinPeriodS;
+    /** Spin pole, model frame, any length (normalised on use). */
+    @JsonProperty("spin_axis")
+    public double[] spinAxis;
+
+    private static final ObjectMapper MAPPER = new ObjectMapper()
+        .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES);
+
+    /** The sidecar path for a model: same folder and base name, extension {@code .json}. */
+    public static Path pathFor(Path model) {
+        String fn = model.getFileName().toString();
+        int dot = fn.lastIndexOf('.');
+        String base = dot > 0 ? fn.substring(0, dot) : fn;
+        return model.resolveSibling(base + ".json");
+    }
+
+    /** Reads a sidecar; a malformed file gives an {@link InputException} naming the file, line and problem. */
+    public static ModelSidecar read(Path file) {
+        try {
+            return MAPPER.readValue(Files.readAllBytes(file), ModelSidecar.class);
+        } catch (JsonProcessingException e) {
+            long line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
+            String msg = e.getOriginalMessage();
+            int nl = msg.indexOf('\n');
+            if (nl > 0) {
+                msg = msg.substring(0, nl);
+            }
+            if (msg.startsWith("Unrecognized field")) {
+                msg = msg.replaceFirst("\\s*\\(class [^)]*\\).*", "") + " (see docs/model-sidecar.md for the keys)";
+            }
+            throw InputException.at(file.toString(), line, "bad model sidecar: " + msg, e);
+        } catch (IOException e) {
+            throw new InputException(file + ": cannot read: " + e.getMessage(), e);
+        }
+    }
+}

@@ -1,0 +1,80 @@
+package dev.cairn.io;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Arrays;
+
+/**
+ * Reads field points from CSV: one point per line {@code x,y,z} in metres, model frame. Blank lines and lines
+ * starting with {@code #} are skipped, and so is a first non-comment line that is not numeric (a header).
+ * Extra columns are refused: a malformed row is an {@link InputException} naming the file and line.
+ */
+public final class PointsCsv {
+    private PointsCsv() {
+    }
+
+    /** Returns the points as {@code 3n} doubles, metres. */
+    public static double[] read(Path file) {
+        if (!Files.isRegularFile(file)) {
+            throw new InputException(file + ": no such file");
+        }
+        double[] xyz = new double[3 * 256];
+        int n = 0;
+        boolean first = true;
+        long lineNo = 0;
+        try (BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+            String line;
+            while ((line = r.readLine()) != null) {
+                lineNo++;
+                String t = line.strip();
+                if (t.isEmpty() || t.startsWith("#")) {
+                    continue;
+                }
+                String[] parts = t.split(",", -1);
+                boolean header = first && !t.isEmpty() && !looksNumeric(parts[0].strip());
+                first = false;
+                if (header) {
+                    continue;
+                }
+                if (parts.length != 3) {
+                    throw InputException.at(file.toString(), lineNo, "row " + lineNo + " has " + parts.length
+                        + " field(s), expected x,y,z");
+                }
+                if (3 * n + 3 > xyz.length) {
+                    xyz = Arrays.copyOf(xyz, xyz.length * 2);
+                }
+                for (int k = 0; k < 3; k++) {
+                    String p = parts[k].strip();
+                    try {
+                        double v = Double.parseDouble(p);
+                        if (!Double.isFinite(v)) {
+                            throw new NumberFormatException();
+                        }
+                        xyz[3 * n + k] = v;
+                    } catch (NumberFormatException e) {
+                        throw InputException.at(file.toString(), lineNo, "row " + lineNo + ": '" + p
+                            + "' is not a finite number");
+                    }
+                }
+                n++;
+            }
+        } catch (IOException e) {
+            throw new InputException(file + ": cannot read: " + e.getMessage(), e);
+        }
+        if (n == 0) {
+            throw new InputException(file + ": no points found");
+        }
+        return Arrays.copyOf(xyz, 3 * n);
+    }
+
+    private static boolean looksNumeric(String s) {
+        if (s.isEmpty()) {
+            return false;
+        }
+        char c = s.charAt(0);
+        return (c >= '0' && c <= '9') || c == '-' || c == '+' || c == '.';
+    }
+}
