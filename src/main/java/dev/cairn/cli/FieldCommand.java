@@ -76,7 +76,7 @@ public final class FieldCommand implements Callable<Integer> {
 
     /** The field model for this command (the polyhedron; later issues add choices). */
     FieldModel fieldModel(BodyModel body) {
-        return body.polyhedronField();
+        return body.fieldModel();
     }
 
     private void writeTo(OutputStream os, double[] xyz, double[] res) throws IOException {

@@ -1,6 +1,7 @@
 package dev.cairn.io;
 
 import dev.cairn.gravity.Constants;
+import dev.cairn.gravity.FieldModel;
 import dev.cairn.gravity.PolyhedronField;
 import dev.cairn.mass.MassProperties;
 import dev.cairn.mass.MassPropertiesCalculator;
@@ -124,6 +125,17 @@ public final class BodyModel {
             field = new PolyhedronField(mesh, edges, density);
         }
         return field;
+    }
+
+    /**
+     * The gravity field model of this body as loaded: the constant-density polyhedron for a plain shape model.
+     * Every command that evaluates "the field of the body" calls this, so that other body kinds (e.g. several
+     * density regions) plug in here.
+     *
+     * @throws InputException when the field cannot be built (surface not fit, no density)
+     */
+    public FieldModel fieldModel() {
+        return polyhedronField();
     }
 
     /** Throws a one-line {@link InputException} when the surface is not closed, consistent and non-degenerate. */
