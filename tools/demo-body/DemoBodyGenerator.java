@@ -126,8 +126,8 @@ public final class DemoBodyGenerator {
                 + "box %.3f x %.3f x %.3f km%n", outDir.resolve(BASE + ".obj"), nv, nf, s.volume,
             s.max[0] - s.min[0], s.max[1] - s.min[1], s.max[2] - s.min[2]);
         System.out.printf(Locale.ROOT, "facet area max/min %.2f, (99th/1st percentile %.2f), min quality %.3f, "
-            + "min normal-radial cosine %.3f%n", s.areaMax / s.areaMin, s.areaP99 / s.areaP01, s.minQuality,
-            s.minRadialCos);
+            + "min normal-radial cosine %.3f, mean edge %.1f m%n", s.areaMax / s.areaMin, s.areaP99 / s.areaP01, s.minQuality,
+            s.minRadialCos, 1000 * s.meanEdge);
         for (double[] p : PATCHES) {
             double[] d = {p[0], p[1], p[2]};
             double r = radius(d);
