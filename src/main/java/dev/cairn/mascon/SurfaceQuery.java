@@ -1,0 +1,215 @@
+package dev.cairn.mascon;
+
+import dev.cairn.mesh.TriangleMesh;
+
+/**
+ * Geometric queries against a closed, outward-oriented triangle mesh, one pass over the facets per query, no
+ * allocation: the winding number (inside test), the distance to the surface and the farthest crossing of a ray.
+ *
+ * <p>Winding number {@code w = Σ_f ω_f / 4π} with the facet solid angle of Van Oosterom, A. &amp; Strackee, J. (1983)
+ * "The solid angle of a plane triangle", IEEE Trans. Biomed. Eng. BME-30(2):125–126; {@code w ≈ 1} inside, 0
+ * outside, ½ on the surface (the sum behind the Laplacian of Werner &amp; Scheeres 1997). Point-to-triangle distance by
+ * the closest-point construction of Ericson, C. (2005) Real-Time Collision Detection, §5.1.5. Ray crossing by
+ * Möller, T. &amp; Trumbore, B. (1997) "Fast, minimum storage ray-triangle intersection", J. Graphics Tools 2(1):21–28.
+ *
+ * <p>Units: metres, model frame. Immutable and thread-safe (no scratch state).
+ */
+public final class SurfaceQuery {
+    private final double[] xyz;
+    private final int[] tri;
+    private final int facets;
+
+    /** @param mesh closed, outward-oriented mesh, metres (shared, not copied) */
+    public SurfaceQuery(TriangleMesh mesh) {
+        this.xyz = mesh.xyz();
+        this.tri = mesh.tri();
+        this.facets = mesh.facetCount();
+    }
+
+    /** Winding number of the surface about {@code (x, y, z)}: ≈1 inside, ≈0 outside, ½ on the surface. */
+    public double winding(double x, double y, double z) {
+        double sum = 0;
+        for (int f = 0; f < facets; f++) {
+            sum += solidAngle(f, x, y, z);
+        }
+        return sum / (4 * Math.PI);
+    }
+
+    /** True when the winding number about the point exceeds ½. */
+    public boolean inside(double x, double y, double z) {
+        return winding(x, y, z) > 0.5;
+    }
+
+    /**
+     * Winding number and unsigned distance to the surface in one pass.
+     *
+     * @param out receives {@code out[0]} = winding number, {@code out[1]} = distance, m (modified)
+     */
+    public void windingAndDistance(double x, double y, double z, double[] out) {
+        double sum = 0;
+        double best = Double.POSITIVE_INFINITY;
+        for (int f = 0; f < facets; f++) {
+            sum += solidAngle(f, x, y, z);
+            double d2 = distanceSquared(f, x, y, z);
+            if (d2 < best) {
+                best = d2;
+            }
+        }
+        out[0] = sum / (4 * Math.PI);
+        out[1] = Math.sqrt(best);
+    }
+
+    /** Unsigned distance from the point to the surface, m. */
+    public double distance(double x, double y, double z) {
+        double best = Double.POSITIVE_INFINITY;
+        for (int f = 0; f < facets; f++) {
+            best = Math.min(best, distanceSquared(f, x, y, z));
+        }
+        return Math.sqrt(best);
+    }
+
+    /**
+     * Largest ray parameter {@code t > 0} at which {@code o + t·d} crosses the surface, or NaN when the ray misses.
+     * Beyond it the ray runs outside the body.
+     */
+    public double farthestHit(double ox, double oy, double oz, double dx, double dy, double dz) {
+        double best = Double.NaN;
+        for (int f = 0; f < facets; f++) {
+            int a = 3 * tri[3 * f];
+            int b = 3 * tri[3 * f + 1];
+            int c = 3 * tri[3 * f + 2];
+            double e1x = xyz[b] - xyz[a];
+            double e1y = xyz[b + 1] - xyz[a + 1];
+            double e1z = xyz[b + 2] - xyz[a + 2];
+            double e2x = xyz[c] - xyz[a];
+            double e2y = xyz[c + 1] - xyz[a + 1];
+            double e2z = xyz[c + 2] - xyz[a + 2];
+            double px = dy * e2z - dz * e2y;
+            double py = dz * e2x - dx * e2z;
+            double pz = dx * e2y - dy * e2x;
+            double det = e1x * px + e1y * py + e1z * pz;
+            if (det == 0) {
+                continue; // exact zero: ray parallel to the facet's plane, no single crossing
+            }
+            double inv = 1 / det;
+            double tx = ox - xyz[a];
+            double ty = oy - xyz[a + 1];
+            double tz = oz - xyz[a + 2];
+            double u = (tx * px + ty * py + tz * pz) * inv;
+            if (u < 0 || u > 1) {
+                continue;
+            }
+            double qx = ty * e1z - tz * e1y;
+            double qy = tz * e1x - tx * e1z;
+            double qz = tx * e1y - ty * e1x;
+            double v = (dx * qx + dy * qy + dz * qz) * inv;
+            if (v < 0 || u + v > 1) {
+                continue;
+            }
+            double t = (e2x * qx + e2y * qy + e2z * qz) * inv;
+            if (t > 0 && !(t <= best)) {
+                best = t;
+            }
+        }
+        return best;
+    }
+
+    private double solidAngle(int f, double x, double y, double z) {
+        int a = 3 * tri[3 * f];
+        int b = 3 * tri[3 * f + 1];
+        int c = 3 * tri[3 * f + 2];
+        double r1x = xyz[a] - x;
+        double r1y = xyz[a + 1] - y;
+        double r1z = xyz[a + 2] - z;
+        double r2x = xyz[b] - x;
+        double r2y = xyz[b + 1] - y;
+        double r2z = xyz[b + 2] - z;
+        double r3x = xyz[c] - x;
+        double r3y = xyz[c + 1] - y;
+        double r3z = xyz[c + 2] - z;
+        double n1 = Math.sqrt(r1x * r1x + r1y * r1y + r1z * r1z);
+        double n2 = Math.sqrt(r2x * r2x + r2y * r2y + r2z * r2z);
+        double n3 = Math.sqrt(r3x * r3x + r3y * r3y + r3z * r3z);
+        double num = r1x * (r2y * r3z - r2z * r3y) + r1y * (r2z * r3x - r2x * r3z) + r1z * (r2x * r3y - r2y * r3x);
+        double den = n1 * n2 * n3 + n1 * (r2x * r3x + r2y * r3y + r2z * r3z)
+            + n2 * (r3x * r1x + r3y * r1y + r3z * r1z) + n3 * (r1x * r2x + r1y * r2y + r1z * r2z);
+        return 2 * Math.atan2(num, den);
+    }
+
+    /** Squared distance from the point to facet {@code f} (Ericson 2005, closest point on triangle). */
+    private double distanceSquared(int f, double px, double py, double pz) {
+        int ia = 3 * tri[3 * f];
+        int ib = 3 * tri[3 * f + 1];
+        int ic = 3 * tri[3 * f + 2];
+        double ax = xyz[ia];
+        double ay = xyz[ia + 1];
+        double az = xyz[ia + 2];
+        double abx = xyz[ib] - ax;
+        double aby = xyz[ib + 1] - ay;
+        double abz = xyz[ib + 2] - az;
+        double acx = xyz[ic] - ax;
+        double acy = xyz[ic + 1] - ay;
+        double acz = xyz[ic + 2] - az;
+        double apx = px - ax;
+        double apy = py - ay;
+        double apz = pz - az;
+        double d1 = abx * apx + aby * apy + abz * apz;
+        double d2 = acx * apx + acy * apy + acz * apz;
+        double qx;
+        double qy;
+        double qz;
+        if (d1 <= 0 && d2 <= 0) {
+            return apx * apx + apy * apy + apz * apz; // vertex region A
+        }
+        double bpx = px - xyz[ib];
+        double bpy = py - xyz[ib + 1];
+        double bpz = pz - xyz[ib + 2];
+        double d3 = abx * bpx + aby * bpy + abz * bpz;
+        double d4 = acx * bpx + acy * bpy + acz * bpz;
+        if (d3 >= 0 && d4 <= d3) {
+            return bpx * bpx + bpy * bpy + bpz * bpz; // vertex region B
+        }
+        double vc = d1 * d4 - d3 * d2;
+        if (vc <= 0 && d1 >= 0 && d3 <= 0) {
+            double v = d1 / (d1 - d3);
+            qx = apx - v * abx;
+            qy = apy - v * aby;
+            qz = apz - v * abz;
+            return qx * qx + qy * qy + qz * qz; // edge AB
+        }
+        double cpx = px - xyz[ic];
+        double cpy = py - xyz[ic + 1];
+        double cpz = pz - xyz[ic + 2];
+        double d5 = abx * cpx + aby * cpy + abz * cpz;
+        double d6 = acx * cpx + acy * cpy + acz * cpz;
+        if (d6 >= 0 && d5 <= d6) {
+            return cpx * cpx + cpy * cpy + cpz * cpz; // vertex region C
+        }
+        double vb = d5 * d2 - d1 * d6;
+        if (vb <= 0 && d2 >= 0 && d6 <= 0) {
+            double w = d2 / (d2 - d6);
+            qx = apx - w * acx;
+            qy = apy - w * acy;
+            qz = apz - w * acz;
+            return qx * qx + qy * qy + qz * qz; // edge AC
+        }
+        double va = d3 * d6 - d5 * d4;
+        if (va <= 0 && (d4 - d3) >= 0 && (d5 - d6) >= 0) {
+            double w = (d4 - d3) / ((d4 - d3) + (d5 - d6));
+            double bcx = xyz[ic] - xyz[ib];
+            double bcy = xyz[ic + 1] - xyz[ib + 1];
+            double bcz = xyz[ic + 2] - xyz[ib + 2];
+            qx = bpx - w * bcx;
+            qy = bpy - w * bcy;
+            qz = bpz - w * bcz;
+            return qx * qx + qy * qy + qz * qz; // edge BC
+        }
+        double denom = 1 / (va + vb + vc);
+        double v = vb * denom;
+        double w = vc * denom;
+        qx = apx - abx * v - acx * w;
+        qy = apy - aby * v - acy * w;
+        qz = apz - abz * v - acz * w;
+        return qx * qx + qy * qy + qz * qz; // face interior
+    }
+}
