@@ -28,6 +28,9 @@ public final class FieldCommand implements Callable<Integer> {
     @Mixin
     ModelOptions model = new ModelOptions();
 
+    @Mixin
+    MasconOptions fieldChoice = new MasconOptions();
+
     @Option(names = "--points", required = true, paramLabel = "FILE", description = "CSV of field points x,y,z in m.")
     Path points;
 
@@ -55,12 +58,13 @@ public final class FieldCommand implements Callable<Integer> {
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
         }
-        FieldModel field = fieldModel(body);
         double[] xyz = PointsCsv.read(points);
+        FieldModel field = fieldChoice.build(body, Math.max(1, threads), err);
         double[] res;
         try (ProgressBar bar = new ProgressBar("field")) {
             res = BatchEvaluation.evaluate(field, xyz, gradient, Math.max(1, threads), bar);
         }
+        MasconOptions.warnTooClose(field, xyz.length / 3, err);
         if (out == null) {
             PrintWriter o = spec.commandLine().getOut();
             StringBuilder sb = new StringBuilder();
@@ -72,11 +76,6 @@ public final class FieldCommand implements Callable<Integer> {
             err.println("cairn: wrote " + (xyz.length / 3) + " points to " + out);
         }
         return 0;
-    }
-
-    /** The field model for this command (the polyhedron; later issues add choices). */
-    FieldModel fieldModel(BodyModel body) {
-        return body.fieldModel();
     }
 
     private void writeTo(OutputStream os, double[] xyz, double[] res) throws IOException {
