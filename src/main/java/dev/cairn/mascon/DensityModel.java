@@ -24,10 +24,41 @@ public interface DensityModel {
     /** The density when it is one constant inside the outer shape, kg/m^3; NaN when it varies. */
     double uniformDensity();
 
+    /**
+     * A density model valid (and faster) for points within {@code radius} of {@code (x, y, z)}; the default is this
+     * model itself. The returned model may keep scratch space: use it from one thread.
+     */
+    default DensityModel near(double x, double y, double z, double radius) {
+        return this;
+    }
+
     /** Constant density inside {@code mesh}, 0 outside. */
     static DensityModel uniform(TriangleMesh mesh, double density) {
         SurfaceQuery q = new SurfaceQuery(mesh);
         return new DensityModel() {
+            @Override
+            public DensityModel near(double x, double y, double z, double radius) {
+                SurfaceQuery.Local local = q.near(x, y, z, radius);
+                DensityModel global = this;
+                return new DensityModel() {
+                    @Override
+                    public void query(double px, double py, double pz, double[] out) {
+                        local.windingAndDistance(px, py, pz, out);
+                        out[0] = out[0] > 0.5 ? density : 0.0;
+                    }
+
+                    @Override
+                    public TriangleMesh outerShape() {
+                        return mesh;
+                    }
+
+                    @Override
+                    public double uniformDensity() {
+                        return density;
+                    }
+                };
+            }
+
             @Override
             public void query(double x, double y, double z, double[] out) {
                 q.windingAndDistance(x, y, z, out);

@@ -15,7 +15,8 @@ import java.util.Locale;
  *     density over it, by adaptive octree sub-division: a (sub-)cube whose centre lies farther from every density
  *     discontinuity than its half-diagonal is uniform and taken whole; otherwise it is split into 8, down to
  *     {@code levels} splits, where the centre value stands for the leaf. Inside/outside from the solid-angle
- *     winding number ({@link SurfaceQuery}). The mascon sits at the cube's centre of mass; cubes with no mass are
+ *     winding number ({@link SurfaceQuery}) at cube centres, and inside a cut cube from the few nearby facets
+ *     ({@link DensityModel#near}). The mascon sits at the cube's centre of mass; cubes with no mass are
  *     dropped. Spacing = h. The classic mascon model (Werner &amp; Scheeres 1997, Celest. Mech. Dyn. Astron.
  *     65:313–344, §5).</li>
  * <li><b>Tetrahedral</b>: each facet with the centre of mass O forms a signed tetrahedron (the decomposition of
@@ -153,8 +154,9 @@ public final class MasconGenerator {
             return;
         }
         double q = 0.5 * half;
+        DensityModel local = density.near(x, y, z, half * Math.sqrt(3));
         for (int k = 0; k < 8; k++) {
-            integrate(density, x + ((k & 1) == 0 ? -q : q), y + ((k & 2) == 0 ? -q : q), z + ((k & 4) == 0 ? -q : q),
+            integrate(local, x + ((k & 1) == 0 ? -q : q), y + ((k & 2) == 0 ? -q : q), z + ((k & 4) == 0 ? -q : q),
                 q, levels - 1, acc);
         }
     }

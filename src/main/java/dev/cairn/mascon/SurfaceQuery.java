@@ -1,5 +1,6 @@
 package dev.cairn.mascon;
 
+import dev.cairn.mesh.EdgeTable;
 import dev.cairn.mesh.TriangleMesh;
 
 /**
@@ -12,18 +13,119 @@ import dev.cairn.mesh.TriangleMesh;
  * the closest-point construction of Ericson, C. (2005) Real-Time Collision Detection, §5.1.5. Ray crossing by
  * Möller, T. &amp; Trumbore, B. (1997) "Fast, minimum storage ray-triangle intersection", J. Graphics Tools 2(1):21–28.
  *
+ * <p>Near the surface, {@link #near} gives a {@link Local} view for points within a radius of a centre: the distance
+ * from the few facets that can be nearest, and inside/outside from the sign of {@code (p − q)·n} against the nearest
+ * facet's angle-weighted pseudo-normal (Bærentzen, J.A. &amp; Aanæs, H. (2005) "Signed distance computation using the
+ * angle weighted pseudonormal", IEEE Trans. Vis. Comput. Graph. 11(3):243–253), exact for a closed 2-manifold.
+ *
  * <p>Units: metres, model frame. Immutable and thread-safe (no scratch state).
  */
 public final class SurfaceQuery {
     private final double[] xyz;
     private final int[] tri;
     private final int facets;
+    /** Unit facet normals, 3 per facet. */
+    private final double[] fn;
+    /** Pseudo-normal of each facet's three edges (half-edges 3f+k), 9 per facet. */
+    private final double[] en;
+    /** Angle-weighted vertex pseudo-normals, 3 per vertex. */
+    private final double[] vn;
 
-    /** @param mesh closed, outward-oriented mesh, metres (shared, not copied) */
+    /** @param mesh closed, outward-oriented 2-manifold mesh, metres (shared, not copied) */
     public SurfaceQuery(TriangleMesh mesh) {
         this.xyz = mesh.xyz();
         this.tri = mesh.tri();
         this.facets = mesh.facetCount();
+        this.fn = mesh.facetNormals();
+        this.vn = new double[xyz.length];
+        this.en = new double[9 * facets];
+        EdgeTable edges = EdgeTable.of(mesh);
+        for (int f = 0; f < facets; f++) {
+            for (int k = 0; k < 3; k++) {
+                int a = tri[3 * f + k];
+                int b = tri[3 * f + (k + 1) % 3];
+                int c = tri[3 * f + (k + 2) % 3];
+                double ux = xyz[3 * b] - xyz[3 * a];
+                double uy = xyz[3 * b + 1] - xyz[3 * a + 1];
+                double uz = xyz[3 * b + 2] - xyz[3 * a + 2];
+                double wx = xyz[3 * c] - xyz[3 * a];
+                double wy = xyz[3 * c + 1] - xyz[3 * a + 1];
+                double wz = xyz[3 * c + 2] - xyz[3 * a + 2];
+                double cos = (ux * wx + uy * wy + uz * wz)
+                    / Math.sqrt((ux * ux + uy * uy + uz * uz) * (wx * wx + wy * wy + wz * wz));
+                double angle = Math.acos(Math.max(-1, Math.min(1, cos)));
+                for (int d = 0; d < 3; d++) {
+                    vn[3 * a + d] += angle * fn[3 * f + d];
+                }
+                int e = edges.edgeOfHalfEdge(3 * f + k);
+                int other = edges.otherFacet(e, f);
+                for (int d = 0; d < 3; d++) {
+                    en[9 * f + 3 * k + d] = fn[3 * f + d] + (other >= 0 ? fn[3 * other + d] : 0);
+                }
+            }
+        }
+    }
+
+    /** Inside/outside and distance for points near a centre, from a few candidate facets. */
+    public final class Local {
+        private final int[] cand;
+        private final double[] w = new double[4];
+
+        private Local(int[] cand) {
+            this.cand = cand;
+        }
+
+        /**
+         * For a point within the radius given to {@link #near}: {@code out[0]} = 1 inside, 0 outside (½ exactly on
+         * the surface), {@code out[1]} = distance to the surface, m (modified). Not thread-safe (own scratch).
+         */
+        public void windingAndDistance(double x, double y, double z, double[] out) {
+            double best = Double.POSITIVE_INFINITY;
+            double sx = 0;
+            double sy = 0;
+            double sz = 0;
+            double nx = 0;
+            double ny = 0;
+            double nz = 0;
+            for (int f : cand) {
+                double d2 = distanceSquared(f, x, y, z, w);
+                if (d2 < best) {
+                    best = d2;
+                    sx = w[0];
+                    sy = w[1];
+                    sz = w[2];
+                    int code = (int) w[3];
+                    double[] src = code == 0 ? fn : code <= 3 ? vn : en;
+                    int o = code == 0 ? 3 * f : code <= 3 ? 3 * tri[3 * f + code - 1] : 9 * f + 3 * (code - 4);
+                    nx = src[o];
+                    ny = src[o + 1];
+                    nz = src[o + 2];
+                }
+            }
+            double side = sx * nx + sy * ny + sz * nz;
+            out[0] = side < 0 ? 1.0 : side > 0 ? 0.0 : 0.5;
+            out[1] = Math.sqrt(best);
+        }
+    }
+
+    /**
+     * A local view valid for points within {@code radius} of {@code (x, y, z)}: keeps the facets that can be nearest
+     * to such a point (distance from the centre at most d + 2·radius, d the centre's distance to the surface).
+     */
+    public Local near(double x, double y, double z, double radius) {
+        double d = distance(x, y, z);
+        double lim = (d + 2 * radius) * (d + 2 * radius) * (1 + 1e-12);
+        int[] buf = new int[16];
+        int n = 0;
+        for (int f = 0; f < facets; f++) {
+            if (distanceSquared(f, x, y, z, null) <= lim) {
+                if (n == buf.length) {
+                    buf = java.util.Arrays.copyOf(buf, 2 * n);
+                }
+                buf[n++] = f;
+            }
+        }
+        return new Local(java.util.Arrays.copyOf(buf, n));
     }
 
     /** Winding number of the surface about {@code (x, y, z)}: ≈1 inside, ≈0 outside, ½ on the surface. */
@@ -50,7 +152,7 @@ public final class SurfaceQuery {
         double best = Double.POSITIVE_INFINITY;
         for (int f = 0; f < facets; f++) {
             sum += solidAngle(f, x, y, z);
-            double d2 = distanceSquared(f, x, y, z);
+            double d2 = distanceSquared(f, x, y, z, null);
             if (d2 < best) {
                 best = d2;
             }
@@ -63,7 +165,7 @@ public final class SurfaceQuery {
     public double distance(double x, double y, double z) {
         double best = Double.POSITIVE_INFINITY;
         for (int f = 0; f < facets; f++) {
-            best = Math.min(best, distanceSquared(f, x, y, z));
+            best = Math.min(best, distanceSquared(f, x, y, z, null));
         }
         return Math.sqrt(best);
     }
@@ -137,7 +239,7 @@ public final class SurfaceQuery {
     }
 
     /** Squared distance from the point to facet {@code f} (Ericson 2005, closest point on triangle). */
-    private double distanceSquared(int f, double px, double py, double pz) {
+    private double distanceSquared(int f, double px, double py, double pz, double[] fw) {
         int ia = 3 * tri[3 * f];
         int ib = 3 * tri[3 * f + 1];
         int ic = 3 * tri[3 * f + 2];
@@ -159,7 +261,7 @@ public final class SurfaceQuery {
         double qy;
         double qz;
         if (d1 <= 0 && d2 <= 0) {
-            return apx * apx + apy * apy + apz * apz; // vertex region A
+            return feature(fw, apx, apy, apz, 1);
         }
         double bpx = px - xyz[ib];
         double bpy = py - xyz[ib + 1];
@@ -167,7 +269,7 @@ public final class SurfaceQuery {
         double d3 = abx * bpx + aby * bpy + abz * bpz;
         double d4 = acx * bpx + acy * bpy + acz * bpz;
         if (d3 >= 0 && d4 <= d3) {
-            return bpx * bpx + bpy * bpy + bpz * bpz; // vertex region B
+            return feature(fw, bpx, bpy, bpz, 2);
         }
         double vc = d1 * d4 - d3 * d2;
         if (vc <= 0 && d1 >= 0 && d3 <= 0) {
@@ -175,7 +277,7 @@ public final class SurfaceQuery {
             qx = apx - v * abx;
             qy = apy - v * aby;
             qz = apz - v * abz;
-            return qx * qx + qy * qy + qz * qz; // edge AB
+            return feature(fw, qx, qy, qz, 4); // edge AB
         }
         double cpx = px - xyz[ic];
         double cpy = py - xyz[ic + 1];
@@ -183,7 +285,7 @@ public final class SurfaceQuery {
         double d5 = abx * cpx + aby * cpy + abz * cpz;
         double d6 = acx * cpx + acy * cpy + acz * cpz;
         if (d6 >= 0 && d5 <= d6) {
-            return cpx * cpx + cpy * cpy + cpz * cpz; // vertex region C
+            return feature(fw, cpx, cpy, cpz, 3);
         }
         double vb = d5 * d2 - d1 * d6;
         if (vb <= 0 && d2 >= 0 && d6 <= 0) {
@@ -191,7 +293,7 @@ public final class SurfaceQuery {
             qx = apx - w * acx;
             qy = apy - w * acy;
             qz = apz - w * acz;
-            return qx * qx + qy * qy + qz * qz; // edge AC
+            return feature(fw, qx, qy, qz, 6); // edge CA
         }
         double va = d3 * d6 - d5 * d4;
         if (va <= 0 && (d4 - d3) >= 0 && (d5 - d6) >= 0) {
@@ -202,7 +304,7 @@ public final class SurfaceQuery {
             qx = bpx - w * bcx;
             qy = bpy - w * bcy;
             qz = bpz - w * bcz;
-            return qx * qx + qy * qy + qz * qz; // edge BC
+            return feature(fw, qx, qy, qz, 5); // edge BC
         }
         double denom = 1 / (va + vb + vc);
         double v = vb * denom;
@@ -210,6 +312,17 @@ public final class SurfaceQuery {
         qx = apx - abx * v - acx * w;
         qy = apy - aby * v - acy * w;
         qz = apz - abz * v - acz * w;
-        return qx * qx + qy * qy + qz * qz; // face interior
+        return feature(fw, qx, qy, qz, 0); // face interior
+    }
+
+    /** Stores p − q and the feature code in {@code w} (when non-null); returns |p − q|². */
+    private static double feature(double[] w, double x, double y, double z, int code) {
+        if (w != null) {
+            w[0] = x;
+            w[1] = y;
+            w[2] = z;
+            w[3] = code;
+        }
+        return x * x + y * y + z * z;
     }
 }
