@@ -38,9 +38,16 @@ public interface DensityModel {
         return new DensityModel() {
             @Override
             public DensityModel near(double x, double y, double z, double radius) {
-                SurfaceQuery.Local local = q.near(x, y, z, radius);
-                DensityModel global = this;
+                return local(q.near(x, y, z, radius));
+            }
+
+            private DensityModel local(SurfaceQuery.Local local) {
                 return new DensityModel() {
+                    @Override
+                    public DensityModel near(double x, double y, double z, double radius) {
+                        return local(local.near(x, y, z, radius));
+                    }
+
                     @Override
                     public void query(double px, double py, double pz, double[] out) {
                         local.windingAndDistance(px, py, pz, out);

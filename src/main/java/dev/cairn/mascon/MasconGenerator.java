@@ -35,6 +35,8 @@ import java.util.Locale;
 public final class MasconGenerator {
     /** Default octree depth for cubes cut by a density discontinuity (2^3 = 8 sub-divisions per edge). */
     public static final int DEFAULT_LEVELS = 3;
+    /** Lattice cells per block edge sharing one local surface view. */
+    private static final int BLOCK = 4;
 
     private MasconGenerator() {
     }
@@ -97,24 +99,44 @@ public final class MasconGenerator {
         int cells = (int) cellsL;
         double[] cm = new double[cells];
         double[] cxyz = new double[3 * cells];
-        ParallelChunks.run(cells, threads, () -> new double[6], (scratch, from, to) -> {
-            for (int c = from; c < to; c++) {
-                int ix = c % nc[0];
-                int iy = (c / nc[0]) % nc[1];
-                int iz = c / (nc[0] * nc[1]);
-                double x = origin[0] + (ix + 0.5) * h;
-                double y = origin[1] + (iy + 0.5) * h;
-                double z = origin[2] + (iz + 0.5) * h;
-                scratch[2] = 0;
-                scratch[3] = 0;
-                scratch[4] = 0;
-                scratch[5] = 0;
-                integrate(density, x, y, z, 0.5 * h, levels, scratch);
-                cm[c] = scratch[2];
-                if (scratch[2] != 0) {
-                    cxyz[3 * c] = scratch[3] / scratch[2];
-                    cxyz[3 * c + 1] = scratch[4] / scratch[2];
-                    cxyz[3 * c + 2] = scratch[5] / scratch[2];
+        // Blocks of BLOCK^3 cells share one local view of the surface (a block the surface does not reach is
+        // decided from its centre alone), so the cost follows the surface, not the volume.
+        int[] nb = {(nc[0] + BLOCK - 1) / BLOCK, (nc[1] + BLOCK - 1) / BLOCK, (nc[2] + BLOCK - 1) / BLOCK};
+        int blocks = nb[0] * nb[1] * nb[2];
+        ParallelChunks.run(blocks, threads, () -> new double[6], (scratch, from, to) -> {
+            for (int b = from; b < to; b++) {
+                int bx = BLOCK * (b % nb[0]);
+                int by = BLOCK * ((b / nb[0]) % nb[1]);
+                int bz = BLOCK * (b / (nb[0] * nb[1]));
+                int ex = Math.min(nc[0], bx + BLOCK);
+                int ey = Math.min(nc[1], by + BLOCK);
+                int ez = Math.min(nc[2], bz + BLOCK);
+                double mx = origin[0] + 0.5 * (bx + ex) * h;
+                double my = origin[1] + 0.5 * (by + ey) * h;
+                double mz = origin[2] + 0.5 * (bz + ez) * h;
+                double radius = 0.5 * h * Math.sqrt((double) (ex - bx) * (ex - bx) + (ey - by) * (ey - by)
+                    + (ez - bz) * (ez - bz));
+                DensityModel local = density.near(mx, my, mz, radius);
+                for (int iz = bz; iz < ez; iz++) {
+                    for (int iy = by; iy < ey; iy++) {
+                        for (int ix = bx; ix < ex; ix++) {
+                            int c = ix + nc[0] * (iy + nc[1] * iz);
+                            double x = origin[0] + (ix + 0.5) * h;
+                            double y = origin[1] + (iy + 0.5) * h;
+                            double z = origin[2] + (iz + 0.5) * h;
+                            scratch[2] = 0;
+                            scratch[3] = 0;
+                            scratch[4] = 0;
+                            scratch[5] = 0;
+                            integrate(local, x, y, z, 0.5 * h, levels, scratch);
+                            cm[c] = scratch[2];
+                            if (scratch[2] != 0) {
+                                cxyz[3 * c] = scratch[3] / scratch[2];
+                                cxyz[3 * c + 1] = scratch[4] / scratch[2];
+                                cxyz[3 * c + 2] = scratch[5] / scratch[2];
+                            }
+                        }
+                    }
                 }
             }
         }, progress);

@@ -70,9 +70,47 @@ public final class SurfaceQuery {
     public final class Local {
         private final int[] cand;
         private final double[] w = new double[4];
+        /** Far mode (surface farther than the radius from the centre): centre, its distance and inside flag. */
+        private final double cx;
+        private final double cy;
+        private final double cz;
+        private final double dc;
+        private final double status;
+        private final boolean exact;
 
-        private Local(int[] cand) {
+        private Local(int[] cand, double cx, double cy, double cz, double dc, double status, boolean exact) {
+            this.exact = exact;
             this.cand = cand;
+            this.cx = cx;
+            this.cy = cy;
+            this.cz = cz;
+            this.dc = dc;
+            this.status = status;
+        }
+
+        /**
+         * A narrower view for points within {@code radius} of {@code (x, y, z)}, a neighbourhood inside this view's
+         * own; built from this view's candidate facets only.
+         */
+        public Local near(double x, double y, double z, double radius) {
+            if (cand == null) {
+                return this;
+            }
+            double[] o = new double[2];
+            windingAndDistance(x, y, z, o);
+            double d = o[1];
+            if (d > radius && !exact) {
+                return new Local(null, x, y, z, d, o[0] > 0.5 ? 1.0 : 0.0, false);
+            }
+            double lim = (d + 2 * radius) * (d + 2 * radius) * (1 + 1e-12);
+            int[] buf = new int[cand.length];
+            int n = 0;
+            for (int f : cand) {
+                if (distanceSquared(f, x, y, z, null) <= lim) {
+                    buf[n++] = f;
+                }
+            }
+            return new Local(java.util.Arrays.copyOf(buf, n), x, y, z, d, Double.NaN, exact);
         }
 
         /**
@@ -80,6 +118,16 @@ public final class SurfaceQuery {
          * the surface), {@code out[1]} = distance to the surface, m (modified). Not thread-safe (own scratch).
          */
         public void windingAndDistance(double x, double y, double z, double[] out) {
+            if (cand == null) {
+                // The surface does not reach into the neighbourhood: same side as the centre; the distance given is
+                // the lower bound d_c − |p − c| (a conservative value for the callers' "farther than" tests).
+                double dx = x - cx;
+                double dy = y - cy;
+                double dz = z - cz;
+                out[0] = status;
+                out[1] = Math.max(0, dc - Math.sqrt(dx * dx + dy * dy + dz * dz));
+                return;
+            }
             double best = Double.POSITIVE_INFINITY;
             double sx = 0;
             double sy = 0;
@@ -110,10 +158,20 @@ public final class SurfaceQuery {
 
     /**
      * A local view valid for points within {@code radius} of {@code (x, y, z)}: keeps the facets that can be nearest
-     * to such a point (distance from the centre at most d + 2·radius, d the centre's distance to the surface).
+     * to such a point (distance from the centre at most d + 2·radius, d the centre's distance to the surface); when
+     * the surface lies farther than {@code radius} (d &gt; radius), every such point is on the centre's side and the
+     * view reports that side and a lower bound of the distance.
      */
     public Local near(double x, double y, double z, double radius) {
+        return near(x, y, z, radius, false);
+    }
+
+    /** As {@link #near(double, double, double, double)}; {@code exactDistance} keeps exact distances far away too. */
+    public Local near(double x, double y, double z, double radius, boolean exactDistance) {
         double d = distance(x, y, z);
+        if (d > radius && !exactDistance) {
+            return new Local(null, x, y, z, d, winding(x, y, z) > 0.5 ? 1.0 : 0.0, false);
+        }
         double lim = (d + 2 * radius) * (d + 2 * radius) * (1 + 1e-12);
         int[] buf = new int[16];
         int n = 0;
@@ -125,7 +183,7 @@ public final class SurfaceQuery {
                 buf[n++] = f;
             }
         }
-        return new Local(java.util.Arrays.copyOf(buf, n));
+        return new Local(java.util.Arrays.copyOf(buf, n), x, y, z, d, Double.NaN, exactDistance);
     }
 
     /** Winding number of the surface about {@code (x, y, z)}: ≈1 inside, ≈0 outside, ½ on the surface. */

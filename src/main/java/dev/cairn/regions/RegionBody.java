@@ -139,42 +139,69 @@ public final class RegionBody {
             }
         }
         final double uni = uniform;
-        return new DensityModel() {
-            @Override
-            public void query(double x, double y, double z, double[] out) {
-                double best = Double.POSITIVE_INFINITY;
-                int inner = -1;
-                double depth = 0;
-                for (int i = 0; i < queries.length; i++) {
-                    queries[i].windingAndDistance(x, y, z, out);
-                    best = Math.min(best, out[1]);
-                    if (i == 0) {
-                        depth = out[1];
-                    }
-                    if (out[0] > 0.5 && (inner < 0 || regions.get(i).depth() > regions.get(inner).depth())) {
-                        inner = i;
-                    }
-                }
-                if (inner < 0) {
-                    out[0] = 0;
-                } else {
-                    Region r = regions.get(inner);
-                    out[0] = r.density() + r.gradient() * depth;
-                }
-                out[1] = best;
-            }
-
-            @Override
-            public TriangleMesh outerShape() {
-                return outerMesh();
-            }
-
-            @Override
-            public double uniformDensity() {
-                return uni;
-            }
-        };
+        return new RegionDensity(uni, null);
     }
+
+    /** Density of the regions; with {@code local} non-null, valid only near the point it was made for. */
+    private final class RegionDensity implements DensityModel {
+        private final double uni;
+        private final SurfaceQuery.Local[] local;
+        private final boolean gradient = hasGradient();
+
+        RegionDensity(double uni, SurfaceQuery.Local[] local) {
+            this.uni = uni;
+            this.local = local;
+        }
+
+        @Override
+        public DensityModel near(double x, double y, double z, double radius) {
+            SurfaceQuery.Local[] l = new SurfaceQuery.Local[queries.length];
+            for (int i = 0; i < l.length; i++) {
+                // With a gradient the depth below the outer surface must stay exact (no far-mode lower bound).
+                l[i] = local != null ? local[i].near(x, y, z, radius)
+                    : queries[i].near(x, y, z, radius, i == 0 && gradient);
+            }
+            return new RegionDensity(uni, l);
+        }
+
+        @Override
+        public void query(double x, double y, double z, double[] out) {
+            double best = Double.POSITIVE_INFINITY;
+            int inner = -1;
+            double depth = 0;
+            for (int i = 0; i < queries.length; i++) {
+                if (local != null) {
+                    local[i].windingAndDistance(x, y, z, out);
+                } else {
+                    queries[i].windingAndDistance(x, y, z, out);
+                }
+                best = Math.min(best, out[1]);
+                if (i == 0) {
+                    depth = out[1];
+                }
+                if (out[0] > 0.5 && (inner < 0 || regions.get(i).depth() > regions.get(inner).depth())) {
+                    inner = i;
+                }
+            }
+            if (inner < 0) {
+                out[0] = 0;
+            } else {
+                Region r = regions.get(inner);
+                out[0] = r.density() + r.gradient() * depth;
+            }
+            out[1] = best;
+        }
+
+        @Override
+        public TriangleMesh outerShape() {
+            return outerMesh();
+        }
+
+        @Override
+        public double uniformDensity() {
+            return uni;
+        }
+}
 
     /**
      * Mass properties of the whole body (constant region densities): volume, area, equivalent and Brillouin radii of

@@ -55,7 +55,13 @@ public final class RegionBodyLoader {
         }
         BodyDescription d;
         try {
-            d = MAPPER.readValue(Files.readAllBytes(file), BodyDescription.class);
+            byte[] bytes = Files.readAllBytes(file);
+            com.fasterxml.jackson.databind.JsonNode tree = MAPPER.readTree(bytes);
+            if (tree == null || !tree.isObject() || !tree.has("regions")) {
+                throw new InputException(file + ": not a body description: no \"regions\" list (a model's own "
+                    + "sidecar JSON is read automatically beside its OBJ: pass the OBJ instead)");
+            }
+            d = MAPPER.readValue(bytes, BodyDescription.class);
         } catch (JsonProcessingException e) {
             long line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
             String msg = e.getOriginalMessage();
