@@ -45,7 +45,7 @@ public final class CompareCommand implements Callable<Integer> {
     public static final String CAUTION = "Caution: verify independently before operational use; mission rules and "
         + "the responsible flight-dynamics authority decide.";
     /** CSV header, a contract for tools that read the output. */
-    public static final String CSV_HEADER = "test_model,mascons,shell,shell_value_m,points,accel_rel_err_max,"
+    public static final String CSV_HEADER = "test_model,mascon_count,shell,shell_value_m,points,accel_rel_err_max,"
         + "accel_rel_err_rms,accel_rel_err_p50,accel_rel_err_p90,accel_rel_err_p99,potential_rel_err_max";
 
     @Mixin
@@ -176,7 +176,10 @@ public final class CompareCommand implements Callable<Integer> {
                     e[i] = Math.sqrt(dx * dx + dy * dy + dz * dz) / FieldSample.accelerationNorm(a, o);
                     pmax = Math.max(pmax, Math.abs(b[o] - a[o]) / Math.abs(a[o]));
                 }
-                rows.add(new Row(tests.get(t).describe(), counts[t], byAltitude ? "altitude" : "radius", s, n,
+                FieldModel tm = tests.get(t);
+                int actual = tm instanceof dev.cairn.mascon.MasconField ? ((dev.cairn.mascon.MasconField) tm).count()
+                    : 0;
+                rows.add(new Row(tm.describe(), actual, byAltitude ? "altitude" : "radius", s, n,
                     stats(e), pmax));
             }
             MasconOptions.warnTooClose(ref, n, err);
@@ -306,7 +309,7 @@ public final class CompareCommand implements Callable<Integer> {
         for (Row r : rows) {
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("test_model", r.testModel);
-            m.put("mascons", r.mascons);
+            m.put("mascon_count", r.mascons);
             m.put("shell", r.shell);
             m.put("shell_value_m", r.value);
             m.put("points", r.points);

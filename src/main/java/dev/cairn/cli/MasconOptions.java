@@ -78,8 +78,8 @@ public final class MasconOptions {
         if (field instanceof MasconField) {
             long close = ((MasconField) field).tooCloseCount();
             if (close > 0) {
-                err.println("cairn: warning: " + close + " of " + points + " point(s) lie closer to a mascon than "
-                    + "its local spacing: point masses model the field poorly there (use the polyhedron)");
+                err.println("cairn: warning: " + ((MasconField) field).count() + " mascons: " + close + " of "
+                    + points + " point(s) lie closer to a mascon than its local spacing: point masses model the field poorly there (use the polyhedron)");
                 err.flush();
             }
         }

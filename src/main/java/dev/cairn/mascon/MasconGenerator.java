@@ -186,7 +186,8 @@ public final class MasconGenerator {
     /**
      * Shells {@code S} and lateral divisions {@code m} for about {@code target} tetrahedral mascons: pieces of the
      * outermost shell roughly as thick as they are wide ({@code S/m ≈ R/h}, R the mean facet distance from the centre
-     * of mass, h the mean facet size), {@code F·m²·S ≈ target}. At least one piece per facet.
+     * of mass, h the mean facet size), {@code F·m²·S ≈ target}; when the target is below {@code F·S} for that S,
+     * {@code m = 1} and {@code S ≈ target/F}. At least one piece per facet.
      *
      * @return {@code {S, m}}
      */
@@ -206,6 +207,10 @@ public final class MasconGenerator {
         double hf = Math.sqrt(mp.surfaceArea() / f);
         double s = Math.cbrt((double) target * r * r / (f * hf * hf));
         int shells = Math.max(1, (int) Math.round(s));
+        if ((double) f * shells > target) {
+            // Too few mascons wanted to balance the pieces: one piece per facet and shell, as many shells as fit.
+            shells = Math.max(1, (int) Math.round((double) target / f));
+        }
         int m = Math.max(1, (int) Math.round(Math.sqrt((double) target / ((double) f * shells))));
         return new int[] {shells, m};
     }
