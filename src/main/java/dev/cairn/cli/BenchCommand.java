@@ -81,7 +81,7 @@ public final class BenchCommand implements Callable<Integer> {
     private void benchMascons(PrintWriter out, BodyModel body, double[] xyz, int all) {
         dev.cairn.mascon.MasconField field = new dev.cairn.mascon.MasconField(
             MasconOptions.generate(body, "tetra", mascons, all));
-        out.printf(Locale.ROOT, "Mascons: %d point masses (%s)%n", field.count(), field.describe());
+        out.printf(Locale.ROOT, "Mascons: %s%n", field.describe());
         BatchEvaluation.evaluate(field, xyz, false, all, ProgressListener.NONE);
         for (int threads : new int[] {1, all}) {
             double best = Double.POSITIVE_INFINITY;
