@@ -150,6 +150,7 @@ public final class CompareCommand implements Callable<Integer> {
             tests.add(MasconOptions.build(other, test, n, scheme, nThreads, err));
         }
         List<Row> rows = new ArrayList<>();
+        int evaluated = 0;
         for (double s : shells) {
             double[] xyz = shellPoints(s, byAltitude, com, dirs, surfR, surface);
             int n = xyz.length / 3;
@@ -157,6 +158,7 @@ public final class CompareCommand implements Callable<Integer> {
                 err.println("cairn: warning: shell " + s + " m lies wholly inside the body; skipped");
                 continue;
             }
+            evaluated += n;
             double[] a;
             try (ProgressBar bar = new ProgressBar("reference")) {
                 a = BatchEvaluation.evaluate(ref, xyz, false, nThreads, bar);
@@ -182,10 +184,10 @@ public final class CompareCommand implements Callable<Integer> {
                 rows.add(new Row(tm.describe(), actual, byAltitude ? "altitude" : "radius", s, n,
                     stats(e), pmax));
             }
-            MasconOptions.warnTooClose(ref, n, err);
         }
+        MasconOptions.warnTooClose(ref, evaluated, err);
         for (FieldModel t : tests) {
-            MasconOptions.warnTooClose(t, rows.isEmpty() ? 0 : points * shells.length, err);
+            MasconOptions.warnTooClose(t, evaluated, err);
         }
         printTable(out, body, ref, rows, byAltitude);
         if (csv != null) {

@@ -23,7 +23,9 @@ import picocli.CommandLine.Spec;
 @Command(name = "field", mixinStandardHelpOptions = true,
     description = {"Evaluate the gravity field at points given in a CSV file (x,y,z in metres, model frame).",
         "Output CSV: potential U > 0 (m^2/s^2), acceleration = grad U (m/s^2), Laplacian (1/s^2), location,",
-        "and with --gradient the gravity-gradient tensor (1/s^2)."})
+        "and with --gradient the gravity-gradient tensor (1/s^2).",
+        "MODEL may be a body description of density regions (.json). With --model mascon the Laplacian is 0 and the",
+        "location 'unknown'; a mass-property report of the mascon set goes to stderr."})
 public final class FieldCommand implements Callable<Integer> {
     @Mixin
     ModelOptions model = new ModelOptions();

@@ -8,7 +8,7 @@ import java.util.Arrays;
  * A set of point masses (mascons), structure-of-arrays: positions in metres (model frame), masses in kg, and each
  * mascon's local spacing in metres (the size of the volume it stands for: closer than that, a point mass is a poor
  * model of that volume). Masses may be negative (the tetrahedral scheme on a body that is not star-shaped about
- * its centre of mass gives signed pieces). Immutable: accessors return copies-free internal arrays, do not modify.
+ * its centre of mass gives signed pieces). Immutable: accessors return the internal arrays, not to be modified.
  */
 public final class MasconSet {
     private final double[] xyz;
