@@ -119,9 +119,8 @@ public final class BodyModel {
     }
 
     /**
-     * Mass properties at the model's density (a body description: the regions combined; the inertia is about the
-     * combined centre of mass) (or 1 kg/m^3 when none was given: mass then equals
-     * volume).
+     * Mass properties at the model's density, or at 1 kg/m^3 when none was given (mass then equals volume). For a body
+     * description: the regions combined, inertia about the combined centre of mass.
      */
     public synchronized MassProperties massProperties() {
         if (massProperties == null && regions != null) {
