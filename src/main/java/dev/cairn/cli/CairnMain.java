@@ -19,6 +19,7 @@ import picocli.CommandLine.Command;
     subcommands = {
         InspectCommand.class,
         FieldCommand.class,
+        CompareCommand.class,
         BenchCommand.class,
         CommandLine.HelpCommand.class})
 public final class CairnMain implements Runnable {
