@@ -1,0 +1,7 @@
+package dev.cairn.viewer;
+
+/**
+ * Lighting of the 3D view. {@link #SHADED}: dim ambient light plus a key light from over the viewer's shoulder, so
+ * relief reads. {@link #FLAT}: full white ambient light only, under which every facet shows exactly its legend colour.
+ */
+public enum Lighting { SHADED, FLAT }
