@@ -87,6 +87,13 @@ public final class SurveyData {
         return new SurveyData(dir, modelFacets, cols, actual, zones);
     }
 
+    /** A survey from columns in memory (no files, no checks), for colouring tests and callers that built it. */
+    static SurveyData ofColumns(Map<String, double[]> columns, int facets) {
+        double[] zone = columns.getOrDefault("zone", new double[facets]);
+        List<Zone> zones = columns.containsKey("cx_m") ? zonesOf(zone, columns, facets) : List.of();
+        return new SurveyData(null, facets, Map.copyOf(columns), "", zones);
+    }
+
     private static String abbreviate(String sha) {
         return sha.length() > 12 ? sha.substring(0, 12) + "…" : sha;
     }
@@ -157,6 +164,10 @@ public final class SurveyData {
                 }
             }
             double[][] data = new double[names.length][n];
+            boolean[] strict = new boolean[names.length];
+            for (String req : REQUIRED) {
+                strict[index.get(req)] = true;
+            }
             int row = 0;
             long lineNo = 1;
             String line;
@@ -179,7 +190,8 @@ public final class SurveyData {
                         }
                         end = line.length();
                     }
-                    data[c][row] = parse(line, start, end, f, lineNo, names[c]);
+                    data[c][row] = strict[c] ? parse(line, start, end, f, lineNo, names[c])
+                        : parseLenient(line, start, end);
                     start = end + 1;
                 }
                 if (start <= line.length()) {
@@ -215,6 +227,15 @@ public final class SurveyData {
             return Double.parseDouble(s);
         } catch (NumberFormatException e) {
             throw InputException.at(file, lineNo, "column '" + column + "': '" + s + "' is not a number");
+        }
+    }
+
+    /** Columns the viewer does not need may hold text: those cells read as NaN. */
+    private static double parseLenient(String line, int start, int end) {
+        try {
+            return Double.parseDouble(line.substring(start, end).trim());
+        } catch (NumberFormatException e) {
+            return Double.NaN;
         }
     }
 
