@@ -52,12 +52,12 @@ public final class ViewerWindow {
     private final ChoiceBox<Quantity> quantity = new ChoiceBox<>();
     private final TextField minField = new TextField();
     private final TextField maxField = new TextField();
-    private final BorderPane root;
+    final BorderPane root;
     private SurveyData survey;
     private double pressX;
     private double pressY;
 
-    private ViewerWindow(BodyGeometry geometry) {
+    ViewerWindow(BodyGeometry geometry) {
         body = new BodyScene(geometry, 960, 720, SceneAntialiasing.BALANCED);
         labels.setMouseTransparent(true);
         Pane view3d = new Pane(body.node(), labels);
@@ -265,7 +265,7 @@ public final class ViewerWindow {
         }
     }
 
-    private void loadSurvey(Path dir, Path model, List<String> forwarded, int facets) {
+    void loadSurvey(Path dir, Path model, List<String> forwarded, int facets) {
         Task<SurveyData> t = new Task<>() {
             @Override
             protected SurveyData call() {
