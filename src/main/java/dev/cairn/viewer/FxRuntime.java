@@ -18,6 +18,9 @@ import javafx.application.Platform;
  */
 public final class FxRuntime {
     private static boolean started;
+    /** Held so the level setting is not lost to garbage collection (JUL keeps loggers weakly). */
+    private static final java.util.logging.Logger FX_STARTUP_LOG =
+        java.util.logging.Logger.getLogger("javafx");
 
     private FxRuntime() {
     }
@@ -33,6 +36,8 @@ public final class FxRuntime {
             if (System.getProperty("prism.forceGPU") == null) {
                 System.setProperty("prism.forceGPU", "true");
             }
+            // JavaFX warns that it runs from the class path (our single jar): true and harmless, so not shown
+            FX_STARTUP_LOG.setLevel(java.util.logging.Level.SEVERE);
             try {
                 Platform.startup(() -> { });
             } catch (IllegalStateException alreadyRunning) {

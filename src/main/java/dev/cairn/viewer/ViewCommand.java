@@ -31,6 +31,10 @@ public final class ViewCommand implements Callable<Integer> {
     @Option(names = "--survey", paramLabel = "DIR", description = "Survey directory (facets.csv, summary.json).")
     Path survey;
 
+    @Option(names = "--measure-frames", paramLabel = "N", hidden = true,
+        description = "Benchmark: orbit for N frames, print frame times and memory, close.")
+    int measureFrames;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -43,7 +47,7 @@ public final class ViewCommand implements Callable<Integer> {
         }
         BodyGeometry geometry = BodyGeometry.of(body);
         try {
-            ViewerWindow.open(geometry, survey, model.modelPath(), ForwardedOptions.of(spec));
+            ViewerWindow.open(geometry, survey, model.modelPath(), ForwardedOptions.of(spec), measureFrames, err);
         } catch (DisplayUnavailableException e) {
             throw new DisplayUnavailableException("cannot open a window: no display available; use 'cairn render "
                 + "... --out FILE.png' to write images instead (under xvfb-run on a machine without a screen)", e);

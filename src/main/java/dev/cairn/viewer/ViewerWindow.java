@@ -54,6 +54,7 @@ public final class ViewerWindow {
     private final TextField maxField = new TextField();
     final BorderPane root;
     private SurveyData survey;
+    private Runnable afterSurvey = () -> { };
     private double pressX;
     private double pressY;
 
@@ -101,6 +102,16 @@ public final class ViewerWindow {
      */
     public static void open(BodyGeometry geometry, Path surveyDir, Path model, List<String> forwarded)
         throws InterruptedException {
+        open(geometry, surveyDir, model, forwarded, 0, null);
+    }
+
+    /**
+     * As {@link #open(BodyGeometry, Path, Path, List)}; with {@code measureFrames > 0} the window orbits the body by
+     * itself for that many frames once the survey is in, prints frame-time and memory figures to {@code report}
+     * and closes (a benchmark of interactive use).
+     */
+    public static void open(BodyGeometry geometry, Path surveyDir, Path model, List<String> forwarded,
+                            int measureFrames, java.io.PrintWriter report) throws InterruptedException {
         FxRuntime.start();
         CountDownLatch closed = new CountDownLatch(1);
         FxRuntime.call(() -> {
@@ -117,10 +128,14 @@ public final class ViewerWindow {
             stage.setScene(scene);
             stage.setOnHidden(e -> closed.countDown());
             stage.show();
+            if (measureFrames > 0) {
+                w.afterSurvey = () -> w.measure(stage, measureFrames, report);
+            }
             w.loadSurvey(surveyDir, model, forwarded, geometry.mesh().facetCount());
             return null;
         });
         closed.await();
+        javafx.application.Platform.exit(); // the window was the process's only work: end the toolkit cleanly
     }
 
     private ToolBar toolbar() {
@@ -285,8 +300,10 @@ public final class ViewerWindow {
             }
             recolour();
             refreshLabels();
+            afterSurvey.run();
         });
         t.setOnFailed(e -> {
+            afterSurvey.run();
             busy.setVisible(false);
             status.setTextFill(Color.rgb(255, 140, 120));
             status.setText("No survey: " + t.getException().getMessage());
@@ -294,6 +311,38 @@ public final class ViewerWindow {
         Thread th = new Thread(t, "cairn-survey");
         th.setDaemon(true);
         th.start();
+    }
+
+    /** Orbits 1° per frame for {@code frames} frames, then reports frame times and heap use and closes. */
+    private void measure(Stage stage, int frames, java.io.PrintWriter report) {
+        long[] t = new long[frames + 1];
+        int[] k = {0};
+        new javafx.animation.AnimationTimer() {
+            @Override
+            public void handle(long now) {
+                t[k[0]++] = now;
+                if (k[0] > frames) {
+                    stop();
+                    long[] d = new long[frames];
+                    for (int i = 0; i < frames; i++) {
+                        d[i] = t[i + 1] - t[i];
+                    }
+                    java.util.Arrays.sort(d);
+                    double mean = (t[frames] - t[0]) / 1e6 / frames;
+                    Runtime rt = Runtime.getRuntime();
+                    System.gc();
+                    report.printf(Locale.ROOT, "cairn: view: %d facets, %d frames while orbiting: mean %.1f ms, "
+                            + "median %.1f ms, 90th percentile %.1f ms per frame; Java heap in use %.0f MB%n",
+                        body.geometry().mesh().facetCount(), frames, mean, d[frames / 2] / 1e6,
+                        d[(int) (0.9 * (frames - 1))] / 1e6, (rt.totalMemory() - rt.freeMemory()) / 1048576.0);
+                    report.flush();
+                    stage.hide();
+                    return;
+                }
+                body.view().orbit(Math.toRadians(1), 0);
+                body.applyView();
+            }
+        }.start();
     }
 
     private void showPick(int f) {
