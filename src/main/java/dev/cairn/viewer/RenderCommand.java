@@ -79,6 +79,7 @@ public final class RenderCommand implements Callable<Integer> {
                 ov.add(Overlay.parse(s));
             }
         }
+        long tLoad = System.nanoTime();
         BodyModel body = model.load(spin);
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
@@ -92,6 +93,10 @@ public final class RenderCommand implements Callable<Integer> {
             err.println("cairn: no --survey given: running the survey first ...");
             err.flush();
             data = SurveySource.run(model.modelPath(), ForwardedOptions.of(spec), nf);
+        }
+        if (Boolean.getBoolean("cairn.timing")) {
+            err.printf(java.util.Locale.ROOT, "cairn: timing: model load + survey %.2f s%n",
+                (System.nanoTime() - tLoad) / 1e9);
         }
         RenderRequest req = new RenderRequest(geometry, data, q, new ColourLimits(min, max), v,
             flat ? Lighting.FLAT : Lighting.SHADED, ov, wh[0], wh[1]);
