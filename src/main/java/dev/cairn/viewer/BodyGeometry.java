@@ -187,6 +187,92 @@ public record BodyGeometry(TriangleMesh mesh, double[] centreOfMass, double[] pr
         return out.toArray();
     }
 
+    /**
+     * A coarse stand-in for the mesh, shown while the user drags on large models: vertex clustering on a grid of
+     * {@code cells} cells along the longest side of the bounding box (Rossignac, J. &amp; Borrel, P. 1993,
+     * "Multi-resolution 3D approximations for rendering complex scenes", Modeling in Computer Graphics, 455–465):
+     * vertices in one cell merge to their mean, facets that collapse are dropped, the rest keep their source facet
+     * (for colour). Scene frame, metres.
+     *
+     * @param points      proxy vertices {@code [x, y, z, ...]}
+     * @param tri         proxy facets (vertex indices)
+     * @param sourceFacet for each proxy facet, the original facet it came from
+     */
+    public record Proxy(float[] points, int[] tri, int[] sourceFacet) {
+        public int facetCount() {
+            return sourceFacet.length;
+        }
+    }
+
+    /** The clustered proxy (see {@link Proxy}). */
+    public Proxy clustered(int cells) {
+        float[] p = scenePoints();
+        int nv = p.length / 3;
+        float[] lo = {Float.MAX_VALUE, Float.MAX_VALUE, Float.MAX_VALUE};
+        float[] hi = {-Float.MAX_VALUE, -Float.MAX_VALUE, -Float.MAX_VALUE};
+        for (int i = 0; i < p.length; i += 3) {
+            for (int k = 0; k < 3; k++) {
+                lo[k] = Math.min(lo[k], p[i + k]);
+                hi[k] = Math.max(hi[k], p[i + k]);
+            }
+        }
+        double extent = Math.max(hi[0] - lo[0], Math.max(hi[1] - lo[1], hi[2] - lo[2]));
+        double inv = cells / (extent > 0 ? extent : 1);
+        // open-addressing hash from cell key to cluster index
+        int cap = Integer.highestOneBit(Math.max(16, nv) * 2) * 2;
+        long[] keys = new long[cap];
+        int[] vals = new int[cap];
+        java.util.Arrays.fill(vals, -1);
+        int[] cluster = new int[nv];
+        double[] sum = new double[3 * nv];
+        int[] count = new int[nv];
+        int nc = 0;
+        for (int i = 0; i < nv; i++) {
+            long ix = (long) ((p[3 * i] - lo[0]) * inv);
+            long iy = (long) ((p[3 * i + 1] - lo[1]) * inv);
+            long iz = (long) ((p[3 * i + 2] - lo[2]) * inv);
+            long key = (ix << 42) | (iy << 21) | iz;
+            int h = (int) ((key * 0x9E3779B97F4A7C15L) >>> 32) & (cap - 1);
+            while (vals[h] >= 0 && keys[h] != key) {
+                h = (h + 1) & (cap - 1);
+            }
+            if (vals[h] < 0) {
+                keys[h] = key;
+                vals[h] = nc++;
+            }
+            int c = vals[h];
+            cluster[i] = c;
+            sum[3 * c] += p[3 * i];
+            sum[3 * c + 1] += p[3 * i + 1];
+            sum[3 * c + 2] += p[3 * i + 2];
+            count[c]++;
+        }
+        float[] pts = new float[3 * nc];
+        for (int c = 0; c < nc; c++) {
+            for (int k = 0; k < 3; k++) {
+                pts[3 * c + k] = (float) (sum[3 * c + k] / count[c]);
+            }
+        }
+        int[] tri = mesh.tri();
+        int nf = tri.length / 3;
+        int[] outTri = new int[tri.length];
+        int[] src = new int[nf];
+        int m = 0;
+        for (int f = 0; f < nf; f++) {
+            int a = cluster[tri[3 * f]];
+            int b = cluster[tri[3 * f + 1]];
+            int c = cluster[tri[3 * f + 2]];
+            if (a == b || b == c || a == c) {
+                continue; // collapsed
+            }
+            outTri[3 * m] = a;
+            outTri[3 * m + 1] = b;
+            outTri[3 * m + 2] = c;
+            src[m++] = f;
+        }
+        return new Proxy(pts, java.util.Arrays.copyOf(outTri, 3 * m), java.util.Arrays.copyOf(src, m));
+    }
+
     /** A growable float array (no boxing). */
     static final class FloatList {
         private float[] a = new float[1024];

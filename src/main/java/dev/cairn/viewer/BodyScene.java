@@ -29,6 +29,10 @@ import javafx.scene.transform.Affine;
  * exactly its texel colour (the legend's colour), used for colour-exact images and tests.
  */
 public final class BodyScene {
+    /** Models with more facets get a clustered proxy for dragging. */
+    public static final int PROXY_ABOVE_FACETS = 200_000;
+    /** Clustering grid of the proxy: cells along the longest side (≈ 50–100 k proxy facets for a round body). */
+    public static final int PROXY_CELLS = 110;
     /** Graticule spacing, degrees. */
     public static final double GRATICULE_STEP_DEG = 15;
     /** Outward lift of surface lines, fraction of the radius (keeps them above the surface in the depth test). */
@@ -41,6 +45,10 @@ public final class BodyScene {
     private final TextureAtlas atlas;
     private final WritableImage texture;
     private final MeshView surface;
+    private final BodyGeometry.Proxy proxy;
+    private final TextureAtlas proxyAtlas;
+    private final WritableImage proxyTexture;
+    private final MeshView proxyView;
     private final Group overlayRoot = new Group();
     private final Map<Overlay, Group> overlays = new EnumMap<>(Overlay.class);
     private final PerspectiveCamera camera = new PerspectiveCamera(true);
@@ -67,26 +75,20 @@ public final class BodyScene {
         atlas = new TextureAtlas(nf);
         texture = new WritableImage(atlas.width(), atlas.height());
 
-        TriangleMesh fx = new TriangleMesh();
-        fx.getPoints().setAll(geometry.scenePoints());
-        fx.getTexCoords().setAll(atlas.texCoords());
-        int[] tri = geometry.mesh().tri();
-        int[] faces = new int[6 * nf];
-        for (int f = 0; f < nf; f++) {
-            faces[6 * f] = tri[3 * f];
-            faces[6 * f + 1] = f;
-            faces[6 * f + 2] = tri[3 * f + 1];
-            faces[6 * f + 3] = f;
-            faces[6 * f + 4] = tri[3 * f + 2];
-            faces[6 * f + 5] = f;
+        surface = meshView(geometry.scenePoints(), geometry.mesh().tri(), atlas, texture);
+        if (nf > PROXY_ABOVE_FACETS) {
+            proxy = geometry.clustered(PROXY_CELLS);
+            proxyAtlas = new TextureAtlas(Math.max(1, proxy.facetCount()));
+            proxyTexture = new WritableImage(proxyAtlas.width(), proxyAtlas.height());
+            proxyView = meshView(proxy.points(), proxy.tri(), proxyAtlas, proxyTexture);
+            proxyView.setVisible(false);
+            proxyView.setMouseTransparent(true);
+        } else {
+            proxy = null;
+            proxyAtlas = null;
+            proxyTexture = null;
+            proxyView = null;
         }
-        fx.getFaces().setAll(faces);
-        fx.getFaceSmoothingGroups().setAll(new int[nf]); // all 0: flat shading, one normal per facet
-        PhongMaterial material = new PhongMaterial(Color.WHITE);
-        material.setDiffuseMap(texture);
-        surface = new MeshView(fx);
-        surface.setMaterial(material);
-        surface.setCullFace(CullFace.BACK); // outward facets are counter-clockwise seen from outside
         setColours(FacetColouring.colour(null, nf, Quantity.NONE, ColourLimits.AUTO).argb());
 
         for (Overlay o : Overlay.values()) {
@@ -101,6 +103,9 @@ public final class BodyScene {
         camera.setVerticalFieldOfView(true);
         camera.getTransforms().add(cameraPose);
         Group world = new Group(surface, overlayRoot, camera, ambient, key);
+        if (proxyView != null) {
+            world.getChildren().add(proxyView);
+        }
         subScene = new SubScene(world, width, height, true, aa);
         subScene.setFill(Color.rgb(24, 26, 30));
         subScene.setCamera(camera);
@@ -111,6 +116,47 @@ public final class BodyScene {
         });
         setLighting(Lighting.SHADED);
         resetView(ViewPreset.ISO);
+    }
+
+    /** A flat-shaded mesh node: texel-centre texture coordinates per facet, all smoothing groups 0. */
+    private static MeshView meshView(float[] points, int[] tri, TextureAtlas atlas, WritableImage texture) {
+        int nf = tri.length / 3;
+        TriangleMesh fx = new TriangleMesh();
+        fx.getPoints().setAll(points);
+        fx.getTexCoords().setAll(atlas.texCoords());
+        int[] faces = new int[6 * nf];
+        for (int f = 0; f < nf; f++) {
+            faces[6 * f] = tri[3 * f];
+            faces[6 * f + 1] = f;
+            faces[6 * f + 2] = tri[3 * f + 1];
+            faces[6 * f + 3] = f;
+            faces[6 * f + 4] = tri[3 * f + 2];
+            faces[6 * f + 5] = f;
+        }
+        fx.getFaces().setAll(faces);
+        fx.getFaceSmoothingGroups().setAll(new int[nf]); // all 0: flat shading, one normal per facet
+        PhongMaterial material = new PhongMaterial(Color.WHITE);
+        material.setDiffuseMap(texture);
+        MeshView v = new MeshView(fx);
+        v.setMaterial(material);
+        v.setCullFace(CullFace.BACK); // outward facets are counter-clockwise seen from outside
+        return v;
+    }
+
+    /**
+     * While {@code on}, large models show their clustered proxy instead of the full mesh, so that dragging stays
+     * fluid on slow (software) OpenGL; no effect on models up to {@link #PROXY_ABOVE_FACETS} facets.
+     */
+    public void setInteracting(boolean on) {
+        if (proxyView != null) {
+            proxyView.setVisible(on);
+            surface.setVisible(!on);
+        }
+    }
+
+    /** Facets of the proxy shown while dragging, or 0 when the model needs none. */
+    public int proxyFacets() {
+        return proxy == null ? 0 : proxy.facetCount();
     }
 
     /** The JavaFX node to put in a layout. */
@@ -135,6 +181,15 @@ public final class BodyScene {
     public void setColours(int[] argb) {
         texture.getPixelWriter().setPixels(0, 0, atlas.width(), atlas.height(),
             javafx.scene.image.PixelFormat.getIntArgbInstance(), atlas.pixels(argb), 0, atlas.width());
+        if (proxy != null) {
+            int[] src = proxy.sourceFacet();
+            int[] pc = new int[Math.max(1, src.length)];
+            for (int i = 0; i < src.length; i++) {
+                pc[i] = argb[src[i]];
+            }
+            proxyTexture.getPixelWriter().setPixels(0, 0, proxyAtlas.width(), proxyAtlas.height(),
+                javafx.scene.image.PixelFormat.getIntArgbInstance(), proxyAtlas.pixels(pc), 0, proxyAtlas.width());
+        }
     }
 
     /** Sets the lighting mode. */

@@ -219,11 +219,15 @@ public final class ViewerWindow {
             pressX = e.getX();
             pressY = e.getY();
         });
+        view3d.setOnMouseReleased(e -> body.setInteracting(false));
+        javafx.animation.PauseTransition settle = new javafx.animation.PauseTransition(javafx.util.Duration.millis(400));
+        settle.setOnFinished(e -> body.setInteracting(false));
         view3d.setOnMouseDragged(e -> {
             double dx = e.getX() - pressX;
             double dy = e.getY() - pressY;
             pressX = e.getX();
             pressY = e.getY();
+            body.setInteracting(true);
             ViewState v = body.view();
             if (e.getButton() == MouseButton.SECONDARY || e.getButton() == MouseButton.MIDDLE || e.isShiftDown()) {
                 double mPerPx = v.distance() / ViewState.focalPixels(body.node().getHeight());
@@ -235,6 +239,8 @@ public final class ViewerWindow {
             refreshLabels();
         });
         view3d.setOnScroll(e -> {
+            body.setInteracting(true);
+            settle.playFromStart();
             body.view().zoom(Math.exp(-ZOOM_PER_UNIT * e.getDeltaY()));
             body.applyView();
             refreshLabels();
@@ -313,8 +319,22 @@ public final class ViewerWindow {
         th.start();
     }
 
-    /** Orbits 1° per frame for {@code frames} frames, then reports frame times and heap use and closes. */
+    /**
+     * Orbits 1° per frame for {@code frames} frames with the full mesh, then (on large models) as many with the
+     * drag proxy, reporting frame times and heap use after each; then closes.
+     */
     private void measure(Stage stage, int frames, java.io.PrintWriter report) {
+        measure(frames, report, false, () -> {
+            if (body.proxyFacets() > 0) {
+                measure(frames, report, true, stage::hide);
+            } else {
+                stage.hide();
+            }
+        });
+    }
+
+    private void measure(int frames, java.io.PrintWriter report, boolean proxy, Runnable then) {
+        body.setInteracting(proxy);
         long[] t = new long[frames + 1];
         int[] k = {0};
         new javafx.animation.AnimationTimer() {
@@ -331,12 +351,15 @@ public final class ViewerWindow {
                     double mean = (t[frames] - t[0]) / 1e6 / frames;
                     Runtime rt = Runtime.getRuntime();
                     System.gc();
-                    report.printf(Locale.ROOT, "cairn: view: %d facets, %d frames while orbiting: mean %.1f ms, "
+                    report.printf(Locale.ROOT, "cairn: view: %d facets%s, %d frames while orbiting: mean %.1f ms, "
                             + "median %.1f ms, 90th percentile %.1f ms per frame; Java heap in use %.0f MB%n",
-                        body.geometry().mesh().facetCount(), frames, mean, d[frames / 2] / 1e6,
+                        body.geometry().mesh().facetCount(),
+                        proxy ? " (drag proxy of " + body.proxyFacets() + " facets shown)" : "", frames, mean,
+                        d[frames / 2] / 1e6,
                         d[(int) (0.9 * (frames - 1))] / 1e6, (rt.totalMemory() - rt.freeMemory()) / 1048576.0);
                     report.flush();
-                    stage.hide();
+                    body.setInteracting(false);
+                    then.run();
                     return;
                 }
                 body.view().orbit(Math.toRadians(1), 0);
