@@ -165,6 +165,7 @@ public final class SurveyData {
             }
             double[][] data = new double[names.length][n];
             boolean[] strict = new boolean[names.length];
+            boolean[] text = new boolean[names.length];
             for (String req : REQUIRED) {
                 strict[index.get(req)] = true;
             }
@@ -190,8 +191,16 @@ public final class SurveyData {
                         }
                         end = line.length();
                     }
-                    data[c][row] = strict[c] ? parse(line, start, end, f, lineNo, names[c])
-                        : parseLenient(line, start, end);
+                    if (strict[c]) {
+                        data[c][row] = parse(line, start, end, f, lineNo, names[c]);
+                    } else if (text[c]) {
+                        data[c][row] = Double.NaN;
+                    } else {
+                        double v = parseLenient(line, start, end);
+                        data[c][row] = v;
+                        // a column holding text once is taken as a text column (no more parse attempts)
+                        text[c] = Double.isNaN(v) && !isNanText(line, start, end);
+                    }
                     start = end + 1;
                 }
                 if (start <= line.length()) {
@@ -228,6 +237,11 @@ public final class SurveyData {
         } catch (NumberFormatException e) {
             throw InputException.at(file, lineNo, "column '" + column + "': '" + s + "' is not a number");
         }
+    }
+
+    private static boolean isNanText(String line, int start, int end) {
+        String s = line.substring(start, end).trim();
+        return s.isEmpty() || s.equalsIgnoreCase("nan");
     }
 
     /** Columns the viewer does not need may hold text: those cells read as NaN. */
