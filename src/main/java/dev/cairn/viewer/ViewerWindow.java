@@ -386,6 +386,9 @@ public final class ViewerWindow {
                 s.value("cz_m", f)));
             sb.append(String.format(Locale.ROOT, "slope             %.2f°%n", s.value("slope_deg", f)));
             sb.append(String.format(Locale.ROOT, "eff. gravity      %.4e m/s²%n", s.value("g_eff_m_s2", f)));
+            if (s.hasColumn("g_m_s2")) {
+                sb.append(String.format(Locale.ROOT, "gravity (no spin) %.4e m/s²%n", s.value("g_m_s2", f)));
+            }
             sb.append(String.format(Locale.ROOT, "eff. potential    %.5e m²/s²%n", s.value("potential_eff_m2_s2", f)));
             sb.append(String.format(Locale.ROOT, "dynamic height    %.2f m%n", s.value("dynamic_height_m", f)));
             sb.append(String.format(Locale.ROOT, "escape speed      %.4f m/s%n", s.value("escape_speed_m_s", f)));
