@@ -52,7 +52,9 @@ public final class FacetColouring {
         if (limits.max() != null) {
             hi = limits.max();
         }
-        boolean diverging = q.kind() == Quantity.Kind.DIVERGING;
+        // a signed quantity uses the diverging ramp only when its range spans zero; one-signed data reads better
+        // on the sequential ramp
+        boolean diverging = q.kind() == Quantity.Kind.DIVERGING && lo < 0 && hi > 0;
         if (diverging) {
             double m = Math.max(Math.abs(lo), Math.abs(hi));
             if (!(m > 0)) {
@@ -74,7 +76,8 @@ public final class FacetColouring {
                 out[f] = ramp.argb((x - lo) * inv); // NaN maps to NO_DATA
             }
         }
-        return new Result(out, new Legend(q.label(), q.units(), q.kind(), lo, hi, warn, List.of()));
+        return new Result(out, new Legend(q.label(), q.units(),
+            diverging ? Quantity.Kind.DIVERGING : Quantity.Kind.SEQUENTIAL, lo, hi, warn, List.of()));
     }
 
     private static Result categories(double[] v, Quantity q, int[] out) {

@@ -40,7 +40,7 @@ public final class SurveyData {
 
     /**
      * A ranked landing zone: its rank (1 = best), the facets that belong to it, and the mean of their facet centroids
-     * (metres, model frame) computed from the mesh.
+     * (metres, model frame) from the {@code cx_m, cy_m, cz_m} columns.
      */
     public record Zone(int rank, int[] facets, double[] centroid) {
     }

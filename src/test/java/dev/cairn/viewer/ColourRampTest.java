@@ -120,5 +120,10 @@ class ColourRampTest {
         assertEquals(20, r.legend().max());
         assertEquals(ColourRamp.DIVERGING.argb(0.5), r.argb()[1]);
         assertEquals(ColourRamp.DIVERGING.argb(1), r.argb()[2]);
+        // one-signed data (e.g. heights above the lowest point) use the sequential ramp
+        SurveyData p = SurveyData.ofColumns(java.util.Map.of("dynamic_height_m", new double[] {0, 5, 10}), 3);
+        FacetColouring.Result q = FacetColouring.colour(p, 3, Quantity.DYNAMIC_HEIGHT, ColourLimits.AUTO);
+        assertEquals(Quantity.Kind.SEQUENTIAL, q.legend().kind());
+        assertEquals(ColourRamp.SEQUENTIAL.argb(0.5), q.argb()[1]);
     }
 }
