@@ -21,6 +21,8 @@ import picocli.CommandLine.Command;
         FieldCommand.class,
         CompareCommand.class,
         BenchCommand.class,
+        dev.cairn.viewer.ViewCommand.class,
+        dev.cairn.viewer.RenderCommand.class,
         CommandLine.HelpCommand.class})
 public final class CairnMain implements Runnable {
     /** Exit code for bad input. */
