@@ -20,6 +20,7 @@ import picocli.CommandLine.Command;
         InspectCommand.class,
         FieldCommand.class,
         BenchCommand.class,
+        SurveyCommand.class,
         CommandLine.HelpCommand.class})
 public final class CairnMain implements Runnable {
     /** Exit code for bad input. */
