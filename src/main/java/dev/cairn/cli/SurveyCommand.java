@@ -76,6 +76,9 @@ public final class SurveyCommand implements Callable<Integer> {
         try (ProgressBar bar = new ProgressBar("survey")) {
             r = Survey.run(body, params, bar);
         }
+        for (String n : r.notes()) {
+            err.println("cairn: note: " + n);
+        }
         SurveyOutputs.writeAll(r, out);
         report(spec.commandLine().getOut(), r);
         return 0;
@@ -150,7 +153,9 @@ public final class SurveyCommand implements Callable<Integer> {
                 lastAlt = h.altitudeM();
             }
         }
-        o.printf(Locale.ROOT, "Survey       %.2f s; outputs in %s%n", r.seconds(), out.toAbsolutePath());
+        double[] st = r.stageSeconds();
+        o.printf(Locale.ROOT, "Survey       %.2f s (field %.2f s, zones %.2f s, hovering %.2f s); outputs in %s%n",
+            r.seconds(), st[0], st[1], st[2], out.toAbsolutePath());
         o.println("Caution: " + SurveyOutputs.CAUTION);
         o.flush();
     }

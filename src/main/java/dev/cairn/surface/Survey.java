@@ -108,13 +108,17 @@ public final class Survey {
         double[] samples = BatchEvaluation.evaluate(target.field(), w.centroid, false, params.threads(),
             offset(progress, 0, total));
         w.derive(samples);
+        long t1 = System.nanoTime();
         // Stage 2: discs, aim facets, zones.
         w.discs(offset(progress, nf, total), nf / (double) discUnits);
         List<LandingZone> zones = w.zones();
+        long t2 = System.nanoTime();
         // Stage 3: hovering.
         List<HoverPoint> hover = w.hover(alts, nCand, req, offset(progress, nf + discUnits, total));
         progress.progress(total, total);
-        return new SurveyResult(w, zones, hover, alts, (System.nanoTime() - t0) / 1e9);
+        long t3 = System.nanoTime();
+        double[] stages = {(t1 - t0) / 1e9, (t2 - t1) / 1e9, (t3 - t2) / 1e9};
+        return new SurveyResult(w, zones, hover, alts, (t3 - t0) / 1e9, stages, w.notes());
     }
 
     private static ProgressListener offset(ProgressListener p, long base, long total) {
@@ -197,6 +201,30 @@ public final class Survey {
             safe = new boolean[nf];
             aim = new boolean[nf];
             zone = new int[nf];
+        }
+
+        /** Remarks on how far the results can be trusted at this mesh resolution. */
+        List<String> notes() {
+            List<String> out = new ArrayList<>();
+            double sa = 0;
+            for (double a : area) {
+                sa += a;
+            }
+            // Side of an equilateral triangle of the mean facet area.
+            double size = Math.sqrt(4 * (sa / nf) / Math.sqrt(3));
+            if (params.zoneRadiusM() < size) {
+                out.add(String.format(java.util.Locale.ROOT, "zone radius %.4g m is smaller than the typical facet "
+                    + "size %.4g m: landing zones are resolved only to whole facets", params.zoneRadiusM(), size));
+            }
+            int boundary = 0;
+            for (int nb : neighbour) {
+                boundary += nb < 0 ? 1 : 0;
+            }
+            if (boundary > 0) {
+                out.add(boundary + " facet sides have no single neighbour (open or non-manifold surface): zone "
+                    + "discs stop there");
+            }
+            return out;
         }
 
         /** Facet across each half-edge {@code 3f+k}, or -1. */

@@ -263,7 +263,13 @@ public final class SurveyOutputs {
         conv.put("zones", "connected aim facets whose whole disc of radius zone_radius_m has slope < max_slope_deg "
             + "and RMS normal spread <= max_roughness_deg; see docs/survey.md for the score");
         j.put("conventions", conv);
+        j.put("notes", r.notes);
         j.put("survey_seconds", r.seconds);
+        Map<String, Object> stages = new LinkedHashMap<>();
+        stages.put("field_at_centroids", r.stageSeconds[0]);
+        stages.put("discs_and_zones", r.stageSeconds[1]);
+        stages.put("hovering", r.stageSeconds[2]);
+        j.put("stage_seconds", stages);
         j.put("caution", CAUTION);
         return j;
     }
@@ -304,7 +310,12 @@ public final class SurveyOutputs {
                 lift += r.area[f];
             }
         }
+        double below = 0;
+        for (int f = 0; f < r.facets; f++) {
+            below += r.slope[f] < r.parameters.maxSlopeDeg() ? r.area[f] : 0;
+        }
         s.put("surface_area_m2", total);
+        s.put("below_max_slope_area_fraction", below / total);
         s.put("lift_off_area_fraction", lift / total);
         return s;
     }

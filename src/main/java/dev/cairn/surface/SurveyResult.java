@@ -45,9 +45,11 @@ public final class SurveyResult {
     final List<LandingZone> zones;
     final List<HoverPoint> hovering;
     final double seconds;
+    final double[] stageSeconds;
+    final List<String> notes;
 
     SurveyResult(Survey.Work w, List<LandingZone> zones, List<HoverPoint> hovering, double[] hoverAltitudes,
-                 double seconds) {
+                 double seconds, double[] stageSeconds, List<String> notes) {
         this.target = w.target;
         this.parameters = w.params;
         this.facets = w.nf;
@@ -81,6 +83,13 @@ public final class SurveyResult {
         this.zones = List.copyOf(zones);
         this.hovering = List.copyOf(hovering);
         this.seconds = seconds;
+        this.stageSeconds = stageSeconds.clone();
+        this.notes = List.copyOf(notes);
+    }
+
+    /** Remarks on the resolution of the results (e.g. a zone radius smaller than the facets). */
+    public List<String> notes() {
+        return notes;
     }
 
     /** The surveyed body. */
@@ -250,6 +259,11 @@ public final class SurveyResult {
     /** Wall-clock time of the survey, s. */
     public double seconds() {
         return seconds;
+    }
+
+    /** Wall-clock seconds of the stages: field at the centroids, discs and zones, hovering. */
+    public double[] stageSeconds() {
+        return stageSeconds.clone();
     }
 
     /** Spin rate, rad/s. */
