@@ -42,12 +42,12 @@ import java.util.List;
  * connected set (across shared edges) of aim facets; its footprint is the union of their discs. Zone score in
  * [0, 1] (weights chosen, no source):
  * <pre>
- *   score = 0.4 (1 − maxSlope/θmax) + 0.3 (1 − roughness/ρmax) + 0.2 (1 − min(1, grade/tan θmax))
+ *   score = 0.4 (1 − discSlope/θmax) + 0.3 (1 − roughness/ρmax) + 0.2 (1 − min(1, grade/tan θmax))
  *         + 0.1 min(1, aimArea/(πR²))
  * </pre>
- * maxSlope over the footprint, roughness the area-weighted mean disc roughness over the aim facets, grade the
- * area-weighted mean over the aim facets of (range of dynamic height in the disc)/(2R) (flatness of the effective
- * potential), the last term rewards room to aim. The facet with the best individual score (same formula, disc values,
+ * where, as area-weighted means over the zone's aim facets, discSlope is the largest slope in the disc (slope margin
+ * of a landing aimed there), roughness the disc roughness and grade (range of dynamic height in the disc)/(2R)
+ * (flatness of the effective potential); the last term rewards room to aim. The facet with the best individual score (same formula, disc values,
  * without the area term) is the suggested aim point.
  *
  * <p><b>Hovering.</b> Up to {@link #HOVER_CANDIDATES} surface facets with the least |a_eff|, at least
@@ -518,12 +518,14 @@ public final class Survey {
                 double aimArea = 0;
                 double rough = 0;
                 double grade = 0;
+                double discSlope = 0;
                 int best = core[0];
                 double bestScore = Double.NEGATIVE_INFINITY;
                 for (int f : core) {
                     aimArea += area[f];
                     rough += area[f] * roughness[f];
                     grade += area[f] * discGrade[f];
+                    discSlope += area[f] * discMaxSlope[f];
                     double s = facetScore(f);
                     if (s > bestScore) { // strict: ties keep the lowest facet index
                         bestScore = s;
@@ -532,7 +534,8 @@ public final class Survey {
                 }
                 rough /= aimArea;
                 grade /= aimArea;
-                double score = W_SLOPE * (1 - maxSlope / th) + W_ROUGH * (1 - rough / params.maxRoughnessDeg())
+                discSlope /= aimArea;
+                double score = W_SLOPE * (1 - discSlope / th) + W_ROUGH * (1 - rough / params.maxRoughnessDeg())
                     + W_GRADE * (1 - Math.min(1, grade / Math.tan(Math.toRadians(th))))
                     + W_AREA * Math.min(1, aimArea / (Math.PI * r * r));
                 double[] c = {cx / sa, cy / sa, cz / sa};
