@@ -104,6 +104,33 @@ class RotatingSphereSurveyTest {
     }
 
     @Test
+    void spinningSphereEscapeSpeedsFollowTheEnergyBalance() {
+        // Inertial energy balance ½|v n + ω×r|² = U with U = GM/R on the sphere (shell theorem) and the frame
+        // velocity ω×r = ω(−y, x, 0) at the facet centroid: v = −b + √(b² + 2GM/R − ω²ρ²), b = n·(ω×r), ρ the
+        // distance from the axis, n the facet's launch direction (its outward normal, within ~1° of radial here).
+        // Least speed over directions (launch along ω×r): √(2GM/R) − ωρ. Only U carries discretisation error.
+        TriangleMesh mesh = Shapes.icosphere(3, RADIUS);
+        SurveyTarget rest = SurveyTestBodies.target("sphere", mesh, DENSITY, SpinState.NONE);
+        double gm = rest.field().gm();
+        double r = rest.equivalentRadius();
+        SurveyTarget t = SurveyTestBodies.target("sphere", mesh, DENSITY, SurveyTestBodies.spinForRatio(0.5, gm, r));
+        SurveyResult res = SurveyTestBodies.survey(t, params());
+        double w = t.spin().omega();
+        double[] xyz = res.centroids();
+        double[] n = res.normals();
+        for (int f = 0; f < res.facetCount(); f++) {
+            double x = xyz[3 * f];
+            double y = xyz[3 * f + 1];
+            double rho = Math.hypot(x, y);
+            double b = w * (-y * n[3 * f] + x * n[3 * f + 1]);
+            double normal = -b + Math.sqrt(b * b + 2 * gm / r - w * w * rho * rho);
+            double prograde = Math.sqrt(2 * gm / r) - w * rho;
+            assertEquals(normal, res.escapeSpeed()[f], ESCAPE_REL_TOL_L3 * normal, "normal launch, facet " + f);
+            assertEquals(prograde, res.escapeSpeedMin()[f], ESCAPE_REL_TOL_L3 * normal, "prograde, facet " + f);
+        }
+    }
+
+    @Test
     void liftOffFlaggedWhereTheAnalyticSphereSaysSo() {
         double q = 1.5; // equator sheds: lift-off where cos²φ > 1/q
         TriangleMesh mesh = Shapes.icosphere(3, RADIUS);
