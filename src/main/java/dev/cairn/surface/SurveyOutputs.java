@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import dev.cairn.io.AtomicFiles;
 import dev.cairn.mesh.TriangleMesh;
+import java.io.DataOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.io.UncheckedIOException;
@@ -19,7 +20,7 @@ import java.util.Map;
 
 /**
  * Writes a {@link SurveyResult} to a directory, each file atomically ({@link AtomicFiles}): {@code facets.csv},
- * {@code summary.json}, {@code surface.vtk} (legacy VTK PolyData, ASCII, every per-facet quantity as cell data) and
+ * {@code summary.json}, {@code surface.vtk} (legacy VTK PolyData, binary encoding, every per-facet quantity as cell data) and
  * the PNG maps of {@link SurveyMaps}. Columns and keys are documented in {@code docs/survey.md}.
  */
 public final class SurveyOutputs {
@@ -85,64 +86,68 @@ public final class SurveyOutputs {
         sb.setLength(0);
     }
 
-    /** {@code surface.vtk}: legacy VTK 3.0 ASCII PolyData with one SCALARS cell array per column, plus vectors. */
+    /**
+     * {@code surface.vtk}: legacy VTK 3.0 PolyData in the format's BINARY encoding (big-endian IEEE doubles and 32-bit
+     * ints after ASCII keyword lines, so NaN and full precision survive), one SCALARS cell array per
+     * {@link FacetColumns} column (integer columns as {@code int}), plus cell NORMALS and VECTORS.
+     */
     public static Path writeVtk(SurveyResult r, Path file) {
         TriangleMesh mesh = r.target.mesh();
         AtomicFiles.write(file, os -> {
-            StringBuilder sb = new StringBuilder(1 << 16);
-            sb.append("# vtk DataFile Version 3.0\n");
-            sb.append("Cairn surface survey of ").append(r.target.name().replaceAll("[\\r\\n]", " "))
-                .append(": SI units, U>0, g=grad U; verify independently before operational use\n");
-            sb.append("ASCII\nDATASET POLYDATA\n");
+            DataOutputStream out = new DataOutputStream(os);
+            String title = ("Cairn surface survey of " + r.target.name().replaceAll("[\\r\\n]", " ")
+                + ": SI units, U>0, g=grad U; verify independently before operational use");
+            if (title.length() > 255) {
+                title = title.substring(0, 255);
+            }
+            ascii(out, "# vtk DataFile Version 3.0\n" + title + "\nBINARY\nDATASET POLYDATA\n");
             double[] xyz = mesh.xyz();
             int nv = mesh.vertexCount();
-            sb.append("POINTS ").append(nv).append(" double\n");
-            for (int i = 0; i < nv; i++) {
-                sb.append(xyz[3 * i]).append(' ').append(xyz[3 * i + 1]).append(' ').append(xyz[3 * i + 2])
-                    .append('\n');
-                if (sb.length() > 1 << 20) {
-                    flush(sb, os);
-                }
+            ascii(out, "POINTS " + nv + " double\n");
+            for (double v : xyz) {
+                out.writeDouble(v);
             }
             int nf = r.facets;
             int[] tri = mesh.tri();
-            sb.append("POLYGONS ").append(nf).append(' ').append(4L * nf).append('\n');
+            ascii(out, "\nPOLYGONS " + nf + " " + 4L * nf + "\n");
             for (int f = 0; f < nf; f++) {
-                sb.append("3 ").append(tri[3 * f]).append(' ').append(tri[3 * f + 1]).append(' ')
-                    .append(tri[3 * f + 2]).append('\n');
-                if (sb.length() > 1 << 20) {
-                    flush(sb, os);
-                }
+                out.writeInt(3);
+                out.writeInt(tri[3 * f]);
+                out.writeInt(tri[3 * f + 1]);
+                out.writeInt(tri[3 * f + 2]);
             }
-            sb.append("CELL_DATA ").append(nf).append('\n');
+            ascii(out, "\nCELL_DATA " + nf + "\n");
             for (FacetColumns.Column c : FacetColumns.ALL) {
-                sb.append("SCALARS ").append(c.name()).append(c.integer() ? " int 1\n" : " double 1\n");
-                sb.append("LOOKUP_TABLE default\n");
+                ascii(out, "SCALARS " + c.name() + (c.integer() ? " int 1\n" : " double 1\n")
+                    + "LOOKUP_TABLE default\n");
                 for (int f = 0; f < nf; f++) {
-                    append(sb, c, r, f);
-                    sb.append('\n');
-                    if (sb.length() > 1 << 20) {
-                        flush(sb, os);
+                    double v = c.getter().value(r, f);
+                    if (c.integer()) {
+                        out.writeInt((int) v);
+                    } else {
+                        out.writeDouble(v);
                     }
                 }
+                ascii(out, "\n");
             }
-            vectors(sb, "normal", r.normal, nf, os);
-            vectors(sb, "gravity_m_s2", r.gVec, nf, os);
-            vectors(sb, "accel_eff_m_s2", r.aEffVec, nf, os);
-            flush(sb, os);
+            vectors(out, "NORMALS normal double\n", r.normal);
+            vectors(out, "VECTORS gravity_m_s2 double\n", r.gVec);
+            vectors(out, "VECTORS accel_eff_m_s2 double\n", r.aEffVec);
+            out.flush();
         });
         return file;
     }
 
-    private static void vectors(StringBuilder sb, String name, double[] v, int nf, OutputStream os)
-        throws IOException {
-        sb.append(name.equals("normal") ? "NORMALS " : "VECTORS ").append(name).append(" double\n");
-        for (int f = 0; f < nf; f++) {
-            sb.append(v[3 * f]).append(' ').append(v[3 * f + 1]).append(' ').append(v[3 * f + 2]).append('\n');
-            if (sb.length() > 1 << 20) {
-                flush(sb, os);
-            }
+    private static void ascii(DataOutputStream out, String s) throws IOException {
+        out.write(s.getBytes(StandardCharsets.US_ASCII));
+    }
+
+    private static void vectors(DataOutputStream out, String header, double[] v) throws IOException {
+        ascii(out, header);
+        for (double x : v) {
+            out.writeDouble(x);
         }
+        ascii(out, "\n");
     }
 
     /** {@code summary.json}. */

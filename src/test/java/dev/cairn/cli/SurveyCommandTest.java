@@ -12,6 +12,7 @@ import dev.cairn.mesh.TriangleMesh;
 import dev.cairn.surface.FacetColumns;
 import dev.cairn.surface.SurveyMaps;
 import java.awt.image.BufferedImage;
+import java.io.DataInputStream;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
@@ -163,47 +164,76 @@ class SurveyCommandTest {
         assertTrue(j.get("caution").asText().toLowerCase(Locale.ROOT).contains("verified independently"));
     }
 
+    /** One ASCII keyword line of a legacy VTK file (bytes up to the newline). */
+    private static String line(DataInputStream in) throws Exception {
+        StringBuilder sb = new StringBuilder();
+        int c;
+        while ((c = in.read()) != '\n') {
+            if (c < 0) {
+                return null;
+            }
+            sb.append((char) c);
+        }
+        return sb.toString();
+    }
+
     @Test
     void vtkHasEveryQuantityAsCellData() throws Exception {
-        List<String> lines = Files.readAllLines(out.resolve("surface.vtk"), StandardCharsets.US_ASCII);
-        assertEquals("# vtk DataFile Version 3.0", lines.get(0));
-        assertTrue(lines.get(1).length() <= 256, "title line limit of the legacy format");
-        assertEquals("ASCII", lines.get(2));
-        assertEquals("DATASET POLYDATA", lines.get(3));
-        int i = 4;
-        String[] pts = lines.get(i).split(" ");
-        assertEquals("POINTS", pts[0]);
-        int nv = Integer.parseInt(pts[1]);
-        i += 1 + nv;
-        assertEquals("POLYGONS " + facets + " " + 4 * facets, lines.get(i));
-        for (int f = 0; f < facets; f++) {
-            assertTrue(lines.get(i + 1 + f).startsWith("3 "));
-        }
-        i += 1 + facets;
-        assertEquals("CELL_DATA " + facets, lines.get(i++));
-        int scalars = 0;
-        int vectors = 0;
-        while (i < lines.size()) {
-            String[] h = lines.get(i).split(" ");
-            if (h[0].equals("SCALARS")) {
-                assertEquals(FacetColumns.ALL.get(scalars).name(), h[1]);
-                assertEquals("LOOKUP_TABLE default", lines.get(i + 1));
-                for (int f = 0; f < facets; f++) {
-                    Double.parseDouble(lines.get(i + 2 + f));
-                }
-                scalars++;
-                i += 2 + facets;
-            } else {
-                assertTrue(h[0].equals("VECTORS") || h[0].equals("NORMALS"), lines.get(i));
-                for (int f = 0; f < facets; f++) {
-                    assertEquals(3, lines.get(i + 1 + f).split(" ").length);
-                }
-                vectors++;
-                i += 1 + facets;
+        // Legacy VTK file format (VTK User's Guide, "VTK File Formats"): ASCII keyword lines; with BINARY, data are
+        // big-endian and each block is followed by a newline.
+        List<String> csv = Files.readAllLines(out.resolve("facets.csv"), StandardCharsets.UTF_8);
+        try (DataInputStream in = new DataInputStream(new java.io.BufferedInputStream(
+            Files.newInputStream(out.resolve("surface.vtk"))))) {
+            assertEquals("# vtk DataFile Version 3.0", line(in));
+            assertTrue(line(in).length() <= 256, "title line limit of the legacy format");
+            assertEquals("BINARY", line(in));
+            assertEquals("DATASET POLYDATA", line(in));
+            String[] pts = line(in).split(" ");
+            assertEquals("POINTS", pts[0]);
+            assertEquals("double", pts[2]);
+            int nv = Integer.parseInt(pts[1]);
+            for (int i = 0; i < 3 * nv; i++) {
+                assertTrue(Double.isFinite(in.readDouble()));
             }
+            assertEquals("", line(in));
+            assertEquals("POLYGONS " + facets + " " + 4 * facets, line(in));
+            for (int f = 0; f < facets; f++) {
+                assertEquals(3, in.readInt());
+                for (int k = 0; k < 3; k++) {
+                    int v = in.readInt();
+                    assertTrue(v >= 0 && v < nv);
+                }
+            }
+            assertEquals("", line(in));
+            assertEquals("CELL_DATA " + facets, line(in));
+            List<String> header = List.of(csv.get(0).split(","));
+            int scalars = 0;
+            int vectors = 0;
+            String l;
+            while ((l = line(in)) != null) {
+                String[] h = l.split(" ");
+                if (h[0].equals("SCALARS")) {
+                    assertEquals(FacetColumns.ALL.get(scalars).name(), h[1]);
+                    assertEquals("LOOKUP_TABLE default", line(in));
+                    int col = header.indexOf(h[1]);
+                    for (int f = 0; f < facets; f++) {
+                        double v = h[2].equals("int") ? in.readInt() : in.readDouble();
+                        double expected = Double.parseDouble(csv.get(f + 1).split(",")[col]);
+                        assertEquals(expected, v, 0.0, h[1] + " facet " + f + " agrees with facets.csv");
+                    }
+                    scalars++;
+                } else {
+                    assertTrue(h[0].equals("VECTORS") || h[0].equals("NORMALS"), l);
+                    for (int i = 0; i < 3 * facets; i++) {
+                        assertTrue(Double.isFinite(in.readDouble()));
+                    }
+                    vectors++;
+                }
+                assertEquals("", line(in));
+            }
+            assertEquals(FacetColumns.ALL.size(), scalars);
+            assertEquals(3, vectors);
         }
-        assertEquals(FacetColumns.ALL.size(), scalars);
-        assertEquals(3, vectors);
     }
 
     @Test
