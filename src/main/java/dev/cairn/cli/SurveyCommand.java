@@ -24,11 +24,12 @@ import picocli.CommandLine.Spec;
  * escape speed, landing and hovering zones), written to an output directory, with a short report on the terminal.
  */
 @Command(name = "survey", mixinStandardHelpOptions = true,
-    description = {"Survey the surface of the spinning body: slope, effective gravity, dynamic height, lift-off,",
-        "escape speed, landing zones and hovering points. Writes facets.csv, summary.json, surface.vtk and PNG maps.",
-        "Conventions: SI units, model (body-fixed) frame, U > 0, g = grad U. See docs/survey.md.",
-        "Caution: results must be verified independently before operational use; mission rules and the",
-        "responsible flight-dynamics authority decide."})
+    description = {"Survey the surface of the spinning body: slope, effective gravity,",
+        "dynamic height, lift-off, escape speed, landing zones and hovering points.",
+        "Writes facets.csv, summary.json, surface.vtk and PNG maps to --out.",
+        "SI units, model (body-fixed) frame, U > 0, g = grad U; see docs/survey.md.",
+        "Caution: results must be verified independently before operational use;",
+        "mission rules and the responsible flight-dynamics authority decide."})
 public final class SurveyCommand implements Callable<Integer> {
     @Mixin
     ModelOptions model = new ModelOptions();
@@ -48,8 +49,9 @@ public final class SurveyCommand implements Callable<Integer> {
         + "the zone radius, degrees (default ${DEFAULT-VALUE}).")
     double maxRoughness = SurveyParameters.DEFAULT_MAX_ROUGHNESS_DEG;
 
-    @Option(names = "--hover-altitudes", paramLabel = "M,M,...", split = ",", description = "Altitudes above the "
-        + "surface for the hovering search, m (default: 0, 2, 5, 10 and 20% of the equivalent radius).")
+    @Option(names = "--hover-altitudes", paramLabel = "M", split = ",", description = "Altitudes above the "
+        + "surface for the hovering search, m, comma-separated (default: 0, 2, 5, 10 and 20%% of the equivalent "
+        + "radius).")
     double[] hoverAltitudes;
 
     @Option(names = "--out", paramLabel = "DIR", description = "Output directory (default: survey-out/ in the "
