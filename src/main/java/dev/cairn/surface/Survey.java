@@ -210,11 +210,14 @@ public final class Survey {
             for (double a : area) {
                 sa += a;
             }
-            // Side of an equilateral triangle of the mean facet area.
-            double size = Math.sqrt(4 * (sa / nf) / Math.sqrt(3));
-            if (params.zoneRadiusM() < size) {
-                out.add(String.format(java.util.Locale.ROOT, "zone radius %.4g m is smaller than the typical facet "
-                    + "size %.4g m: landing zones are resolved only to whole facets", params.zoneRadiusM(), size));
+            // Circumradius (= centroid-to-vertex distance) of an equilateral triangle of the mean facet area: below
+            // it a disc holds only its own facet.
+            double side = Math.sqrt(4 * (sa / nf) / Math.sqrt(3));
+            double circum = side / Math.sqrt(3);
+            if (params.zoneRadiusM() < circum) {
+                out.add(String.format(java.util.Locale.ROOT, "zone radius %.4g m is below the typical facet "
+                    + "circumradius %.4g m: each disc is a single facet, so landing zones are resolved only to whole "
+                    + "facets", params.zoneRadiusM(), circum));
             }
             int boundary = 0;
             for (int nb : neighbour) {
@@ -472,7 +475,7 @@ public final class Survey {
             int[] foot = new int[nf];
             double th = params.maxSlopeDeg();
             double r = params.zoneRadiusM();
-            List<Object[]> unranked = new ArrayList<>();
+            List<Candidate> unranked = new ArrayList<>();
             for (int id = 0; id < cores.size(); id++) {
                 int[] core = cores.get(id);
                 int nFoot = 0;
@@ -543,16 +546,16 @@ public final class Survey {
                 LandingZone z = new LandingZone(0, score, footprint.length, core.length, sa, aimArea, c,
                     frame.latitudeDeg(c[0], c[1], c[2]), frame.longitudeDeg(c[0], c[1], c[2]), best, bp, maxSlope,
                     meanSlope / sa, rough, hMax - hMin, mge / sa, mg / sa, mesc / sa, minEsc);
-                unranked.add(new Object[] {z, footprint, core});
+                unranked.add(new Candidate(z, footprint, core[0]));
             }
-            unranked.sort(Comparator.<Object[]>comparingDouble(o -> -((LandingZone) o[0]).score())
-                .thenComparingDouble(o -> -((LandingZone) o[0]).areaM2())
-                .thenComparingInt(o -> ((int[]) o[2])[0]));
+            unranked.sort(Comparator.<Candidate>comparingDouble(c -> -c.zone().score())
+                .thenComparingDouble(c -> -c.zone().areaM2())
+                .thenComparingInt(Candidate::firstAimFacet));
             List<LandingZone> out = new ArrayList<>();
             for (int i = 0; i < unranked.size(); i++) {
-                LandingZone z = (LandingZone) unranked.get(i)[0];
+                LandingZone z = unranked.get(i).zone();
                 int rank = i + 1;
-                for (int q : (int[]) unranked.get(i)[1]) {
+                for (int q : unranked.get(i).footprint()) {
                     if (zone[q] == 0) {
                         zone[q] = rank;
                     }
@@ -563,6 +566,10 @@ public final class Survey {
                     z.meanGravity(), z.meanEscapeSpeed(), z.minEscapeSpeed()));
             }
             return out;
+        }
+
+        /** A zone before ranking: its statistics, footprint facets and lowest aim facet (the last tie-break). */
+        private record Candidate(LandingZone zone, int[] footprint, int firstAimFacet) {
         }
 
         /** Hovering: distinct low-|a_eff| facets, re-evaluated at each altitude. */
