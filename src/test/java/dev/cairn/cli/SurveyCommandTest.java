@@ -160,6 +160,8 @@ class SurveyCommandTest {
             }
         }
         assertTrue(j.get("hovering").size() > 0);
+        assertTrue(j.get("notes").isArray());
+        assertTrue(j.get("statistics").get("below_max_slope_area_fraction").asDouble() >= 0);
         assertTrue(j.get("conventions").get("potential").asText().contains("U > 0"));
         assertTrue(j.get("caution").asText().toLowerCase(Locale.ROOT).contains("verified independently"));
     }

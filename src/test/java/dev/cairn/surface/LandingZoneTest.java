@@ -84,6 +84,7 @@ class LandingZoneTest {
         double cap = 2 * Math.PI * RADIUS * RADIUS * (1 - Math.cos(Math.toRadians(CAP_DEG)));
         assertTrue(z.areaM2() > 0.5 * cap && z.areaM2() < 1.05 * cap, "footprint area " + z.areaM2());
         assertTrue(z.aimAreaM2() < z.areaM2());
+        assertTrue(r.notes().isEmpty(), "radius above the facet circumradius: " + r.notes());
     }
 
     @Test
@@ -113,6 +114,8 @@ class LandingZoneTest {
         SurveyResult gentle = SurveyTestBodies.survey(t, p.withMaxSlope(Math.min(89, 2 * s0)));
         assertEquals(1, gentle.zones().size());
         assertEquals(12, gentle.zones().get(0).facetCount());
+        // A radius far below the facet size is reported: each disc is a single facet.
+        assertEquals(1, gentle.notes().size(), gentle.notes().toString());
     }
 
     @Test
