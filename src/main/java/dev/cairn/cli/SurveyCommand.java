@@ -143,8 +143,9 @@ public final class SurveyCommand implements Callable<Integer> {
             r.zones().size(), r.parameters().maxSlopeDeg(), r.parameters().maxRoughnessDeg(),
             r.parameters().zoneRadiusM());
         for (LandingZone z : r.zones().subList(0, Math.min(5, r.zones().size()))) {
-            o.printf(Locale.ROOT, "  #%d score %.3f  lat %6.1f lon %7.1f  area %.4g m^2  slope max %.1f mean %.1f deg"
-                + "  g_eff %.4g m/s^2  escape %.3g m/s%n", z.rank(), z.score(), z.latDeg(), z.lonDeg(), z.areaM2(),
+            o.printf(Locale.ROOT, "  #%d score %.3f  aim lat %6.1f lon %7.1f  area %.4g m^2  slope max %.1f mean %.1f"
+                + " deg  g_eff %.4g m/s^2  escape %.3g m/s%n", z.rank(), z.score(), z.bestLatDeg(), z.bestLonDeg(),
+                z.areaM2(),
                 z.maxSlopeDeg(), z.meanSlopeDeg(), z.meanGravityEff(), z.meanEscapeSpeed());
         }
         double lastAlt = -1;

@@ -11,11 +11,14 @@ package dev.cairn.surface;
  * @param aimFacetCount        aim facets (zone core)
  * @param areaM2               footprint area, m²
  * @param aimAreaM2            area of the aim facets, m²
- * @param centroid             area-weighted mean of the footprint facet centroids, m (may lie slightly off the surface)
+ * @param centroid             area-weighted mean of the footprint facet centroids, m (off the surface for a curved
+ *                             zone, and outside the zone for a ring-shaped one: use {@code bestPoint} for a point in it)
  * @param latDeg               latitude of {@code centroid}
  * @param lonDeg               east longitude of {@code centroid}
  * @param bestFacet            aim facet with the best individual score (a suggested aim point), 0-based OBJ order
- * @param bestPoint            centroid of {@code bestFacet}, m (on the surface)
+ * @param bestPoint            centroid of {@code bestFacet}, m (on the surface, inside the zone)
+ * @param bestLatDeg           latitude of {@code bestPoint}
+ * @param bestLonDeg           east longitude of {@code bestPoint}
  * @param maxSlopeDeg          largest facet slope in the footprint
  * @param meanSlopeDeg         area-weighted mean slope in the footprint
  * @param roughnessDeg         area-weighted mean, over the aim facets, of the RMS normal spread in their discs
@@ -27,7 +30,7 @@ package dev.cairn.surface;
  */
 public record LandingZone(int rank, double score, int facetCount, int aimFacetCount, double areaM2, double aimAreaM2,
                           double[] centroid, double latDeg, double lonDeg, int bestFacet, double[] bestPoint,
-                          double maxSlopeDeg, double meanSlopeDeg, double roughnessDeg, double dynamicHeightRangeM,
+                          double bestLatDeg, double bestLonDeg, double maxSlopeDeg, double meanSlopeDeg, double roughnessDeg, double dynamicHeightRangeM,
                           double meanGravityEff, double meanGravity, double meanEscapeSpeed, double minEscapeSpeed) {
     public LandingZone {
         centroid = centroid.clone();

@@ -544,7 +544,8 @@ public final class Survey {
                 double[] c = {cx / sa, cy / sa, cz / sa};
                 double[] bp = {centroid[3 * best], centroid[3 * best + 1], centroid[3 * best + 2]};
                 LandingZone z = new LandingZone(0, score, footprint.length, core.length, sa, aimArea, c,
-                    frame.latitudeDeg(c[0], c[1], c[2]), frame.longitudeDeg(c[0], c[1], c[2]), best, bp, maxSlope,
+                    frame.latitudeDeg(c[0], c[1], c[2]), frame.longitudeDeg(c[0], c[1], c[2]), best, bp, lat[best],
+                    lon[best], maxSlope,
                     meanSlope / sa, rough, hMax - hMin, mge / sa, mg / sa, mesc / sa, minEsc);
                 unranked.add(new Candidate(z, footprint, core[0]));
             }
@@ -561,7 +562,8 @@ public final class Survey {
                     }
                 }
                 out.add(new LandingZone(rank, z.score(), z.facetCount(), z.aimFacetCount(), z.areaM2(),
-                    z.aimAreaM2(), z.centroid(), z.latDeg(), z.lonDeg(), z.bestFacet(), z.bestPoint(),
+                    z.aimAreaM2(), z.centroid(), z.latDeg(), z.lonDeg(), z.bestFacet(), z.bestPoint(), z.bestLatDeg(),
+                    z.bestLonDeg(),
                     z.maxSlopeDeg(), z.meanSlopeDeg(), z.roughnessDeg(), z.dynamicHeightRangeM(), z.meanGravityEff(),
                     z.meanGravity(), z.meanEscapeSpeed(), z.minEscapeSpeed()));
             }

@@ -245,6 +245,9 @@ public final class SurveyMaps {
             g.setColor(Color.BLACK);
             g.drawString("lift-off", bx + bw + 4, TOP + GRID_H + 17);
             markZones(g, r);
+            g.setColor(Color.BLACK);
+            g.drawString("O n = zone n", bx - 8, TOP + GRID_H + 34);
+            g.drawString("(best aim point)", bx - 8, TOP + GRID_H + 48);
         }
         g.dispose();
         return img;
@@ -255,8 +258,8 @@ public final class SurveyMaps {
         int n = Math.min(10, r.zones.size());
         for (int k = 0; k < n; k++) {
             LandingZone z = r.zones.get(k);
-            int x = LEFT + (int) Math.round((z.lonDeg() + 180) / 360 * GRID_W);
-            int y = TOP + (int) Math.round((90 - z.latDeg()) / 180 * GRID_H);
+            int x = LEFT + (int) Math.round((z.bestLonDeg() + 180) / 360 * GRID_W);
+            int y = TOP + (int) Math.round((90 - z.bestLatDeg()) / 180 * GRID_H);
             g.setColor(Color.WHITE);
             g.drawOval(x - 6, y - 6, 12, 12);
             g.setColor(Color.BLACK);

@@ -165,7 +165,14 @@ public final class SurveyOutputs {
     public static String sha256(Path file) {
         try {
             MessageDigest md = MessageDigest.getInstance("SHA-256");
-            byte[] h = md.digest(Files.readAllBytes(file));
+            try (java.io.InputStream in = Files.newInputStream(file)) {
+                byte[] buf = new byte[1 << 16];
+                int n;
+                while ((n = in.read(buf)) > 0) {
+                    md.update(buf, 0, n);
+                }
+            }
+            byte[] h = md.digest();
             StringBuilder sb = new StringBuilder();
             for (byte b : h) {
                 sb.append(String.format("%02x", b));
@@ -225,6 +232,8 @@ public final class SurveyOutputs {
             m.put("aim_facet_count", z.aimFacetCount());
             m.put("best_aim_facet", z.bestFacet());
             m.put("best_aim_point_m", z.bestPoint());
+            m.put("best_aim_lat_deg", z.bestLatDeg());
+            m.put("best_aim_lon_deg", z.bestLonDeg());
             m.put("max_slope_deg", z.maxSlopeDeg());
             m.put("mean_slope_deg", z.meanSlopeDeg());
             m.put("roughness_deg", z.roughnessDeg());

@@ -58,6 +58,9 @@ class LandingZoneTest {
         LandingZone z = r.zones().get(0);
         assertEquals(1, z.rank());
         assertTrue(z.latDeg() > 90 - CAP_DEG, "zone centroid inside the cap, latitude " + z.latDeg());
+        assertTrue(z.bestLatDeg() > 90 - CAP_DEG, "best aim point inside the cap, latitude " + z.bestLatDeg());
+        assertEquals(1, r.zoneRank()[z.bestFacet()], "the best aim facet belongs to its zone");
+        assertTrue(r.aimFacets()[z.bestFacet()]);
         double capZ = RADIUS * Math.cos(Math.toRadians(CAP_DEG));
         int[] zone = r.zoneRank();
         double[] xyz = mesh.xyz();
