@@ -170,8 +170,7 @@ public final class SurveyMaps {
     private static String subtitle(SurveyResult r) {
         double p = r.target.spin().periodSeconds();
         String spin = Double.isInfinite(p) ? "no spin" : String.format(Locale.ROOT, "spin period %.4g h", p / 3600);
-        return r.target.name() + ", " + r.facets + " facets, " + spin
-            + "; lat/lon about the spin pole from the centre of mass";
+        return r.target.name() + ", " + r.facets + " facets, " + spin;
     }
 
     private static BufferedImage map(SurveyResult r, LatLonRaster raster, double[] v, double lo, double hi,
@@ -219,7 +218,7 @@ public final class SurveyMaps {
         g.setFont(bold);
         g.drawString(title + " (" + unit + ")", LEFT, 18);
         g.setFont(g.getFont().deriveFont(Font.PLAIN, 11f));
-        g.drawString(subtitle(r), LEFT, 36);
+        g.drawString(subtitle(r) + "; lat/lon about the spin pole from the centre of mass", LEFT, 36);
         g.drawString("Caution: " + SurveyOutputs.CAUTION, LEFT - 60, MAP_HEIGHT - 10);
         // Colour bar.
         int bx = LEFT + GRID_W + 30;
@@ -232,11 +231,13 @@ public final class SurveyMaps {
         g.drawRect(bx, TOP, bw, GRID_H);
         g.setFont(g.getFont().deriveFont(Font.PLAIN, 11f));
         fm = g.getFontMetrics();
-        for (int k = 0; k <= 5; k++) {
-            double val = lo + span * k / 5;
-            int y = TOP + GRID_H - (int) Math.round(GRID_H * k / 5.0);
+        double step = niceCeil(span / 6);
+        for (double val = Math.ceil(lo / step) * step; val <= hi + 1e-9 * span; val += step) {
+            double tick = Math.abs(val) < 1e-9 * step ? 0 : val; // print -0 as 0
+            int y = TOP + GRID_H - (int) Math.round(GRID_H * (tick - lo) / span);
             g.drawLine(bx + bw, y, bx + bw + 4, y);
-            g.drawString(fmt(val) + (k == 5 && slopeMap && hi < 90 ? "+" : ""), bx + bw + 6, y + 4);
+            boolean top = tick + step > hi + 1e-9 * span;
+            g.drawString(fmt(tick) + (top && slopeMap && hi < 90 ? "+" : ""), bx + bw + 6, y + 4);
         }
         g.drawString(unit, bx, TOP - 6);
         if (slopeMap) {
