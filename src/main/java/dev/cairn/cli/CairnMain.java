@@ -17,6 +17,7 @@ import picocli.CommandLine.Command;
         "Caution: results must be verified independently before operational use; mission rules and the",
         "responsible flight-dynamics authority decide."},
     subcommands = {
+        SurveyCommand.class,
         InspectCommand.class,
         FieldCommand.class,
         CompareCommand.class,

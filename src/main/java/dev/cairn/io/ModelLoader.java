@@ -146,15 +146,12 @@ public final class ModelLoader {
         if (axis.length != 3) {
             throw new InputException(sidecarPath + ": spin_axis must have 3 components");
         }
-        if (period == null) {
-            return new SpinState(Double.POSITIVE_INFINITY, axis);
-        }
-        if (!(period > 0)) {
+        if (period != null && !(period > 0)) {
             throw new InputException((req.spinPeriod() != null ? "--spin-period" : sidecarPath.toString())
                 + ": spin period must be positive, got " + period);
         }
         try {
-            return new SpinState(period, axis);
+            return new SpinState(period == null ? Double.POSITIVE_INFINITY : period, axis);
         } catch (IllegalArgumentException e) {
             throw new InputException((req.spinAxis() != null ? "--spin-axis" : sidecarPath.toString()) + ": "
                 + e.getMessage());
