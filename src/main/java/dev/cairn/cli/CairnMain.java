@@ -20,6 +20,8 @@ import picocli.CommandLine.Command;
         InspectCommand.class,
         FieldCommand.class,
         BenchCommand.class,
+        TableCommand.class,
+        TableMergeCommand.class,
         CommandLine.HelpCommand.class})
 public final class CairnMain implements Runnable {
     /** Exit code for bad input. */
