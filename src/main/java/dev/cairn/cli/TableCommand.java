@@ -138,6 +138,13 @@ public final class TableCommand implements Callable<Integer> {
         + "study as fractions of the Brillouin radius (default ${DEFAULT-VALUE}).")
     double[] benchSpacings = {0.4, 0.2, 0.1};
 
+    @Option(names = "--stop-after-chunks", hidden = true, paramLabel = "N", description = "Stop after N checkpoint "
+        + "chunks as if interrupted (to try --resume; exit code 3).")
+    int stopAfterChunks;
+
+    /** Exit code of a run stopped by --stop-after-chunks (resumable). */
+    public static final int EXIT_INCOMPLETE = 3;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -192,18 +199,28 @@ public final class TableCommand implements Callable<Integer> {
             shardCount, threads, modelInfo(body), VersionProvider.version());
         long t0 = System.nanoTime();
         TableBuilder.Outcome outcome;
+        java.util.concurrent.atomic.AtomicInteger chunks = new java.util.concurrent.atomic.AtomicInteger();
         try (ProgressBar bar = new ProgressBar(shard != null ? "table " + shard : "table")) {
-            outcome = TableBuilder.build(req, bar, () -> false, now());
+            outcome = TableBuilder.build(req, bar,
+                () -> stopAfterChunks > 0 && chunks.incrementAndGet() >= stopAfterChunks, now());
         }
         double secs = (System.nanoTime() - t0) / 1e9;
-        int computedNodes = grid.nodeCount();
-        err.printf(Locale.ROOT, "cairn: wrote %s (%s, %d nodes x %d columns) and %s%s%n", out, fmt,
-            shard != null ? ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("end_node")).intValue()
-                - ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("first_node")).intValue() : computedNodes,
-            layout.columnCount(), TableFiles.sidecarPath(out).getFileName(),
+        if (!outcome.complete()) {
+            err.printf(Locale.ROOT, "cairn: stopped after %d chunk(s) as asked; run again with --resume to finish%n",
+                outcome.job().chunksReused() + outcome.job().chunksDone());
+            err.flush();
+            return EXIT_INCOMPLETE;
+        }
+        int computedNodes = shard != null ? ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("end_node"))
+            .intValue() - ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("first_node")).intValue()
+            : grid.nodeCount();
+        err.printf(Locale.ROOT, "cairn: wrote %s (%s, %d nodes x %d columns) and %s%s%n", out,
+            shard != null ? "npy shard" : fmt, computedNodes, layout.columnCount(), TableFiles.sidecarPath(out).getFileName(),
             outcome.job().chunksReused() > 0 ? " (resumed: " + outcome.job().chunksReused() + " chunk(s) reused)" : "");
-        err.printf(Locale.ROOT, "cairn: %.2f s, %.0f nodes/s with %d thread(s)%n", secs,
-            outcome.job().chunksDone() == 0 ? 0 : nodesDone(outcome, grid) / secs, threads);
+        if (outcome.job().chunksReused() == 0) {
+            err.printf(Locale.ROOT, "cairn: %.2f s, %.0f nodes/s with %d thread(s)%n", secs, computedNodes / secs,
+                threads);
+        }
         if (shard == null && checkSamples > 0 && !(grid instanceof PointGrid)) {
             Table table = TableFiles.read(out);
             TableField tf;
@@ -226,10 +243,6 @@ public final class TableCommand implements Callable<Integer> {
         outw.flush();
         err.flush();
         return 0;
-    }
-
-    private static double nodesDone(TableBuilder.Outcome o, Grid g) {
-        return g.nodeCount(); // approximate rate for the whole run (reused chunks included)
     }
 
     static void printAccuracy(PrintWriter w, AccuracyCheck.Report rep) {
