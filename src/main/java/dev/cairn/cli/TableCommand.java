@@ -54,7 +54,7 @@ public final class TableCommand implements Callable<Integer> {
     @Mixin
     SpinOptions spinOptions = new SpinOptions();
 
-    @Option(names = "--grid", required = true, paramLabel = "box|sphere|points", description = "Grid kind.")
+    @Option(names = "--grid", paramLabel = "box|sphere|points", description = "Grid kind (required except with --bench).")
     String gridKind;
 
     @Option(names = "--box", split = ",", paramLabel = "XMIN,XMAX,YMIN,YMAX,ZMIN,ZMAX",
@@ -155,7 +155,12 @@ public final class TableCommand implements Callable<Integer> {
         if (threads < 1) {
             throw new InputException("--threads: must be at least 1, got " + threads);
         }
-        preCheckGrid();
+        if (gridKind == null && !bench) {
+            throw new InputException("--grid: missing (box, sphere or points)");
+        }
+        if (gridKind != null) {
+            preCheckGrid();
+        }
         BodyModel body = model.load(spinOptions);
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
@@ -362,7 +367,7 @@ public final class TableCommand implements Callable<Integer> {
     private int bench(BodyModel body, FieldModel field, PrintWriter w) {
         double rb = body.massProperties().brillouinRadius();
         double[] com = body.massProperties().centerOfMass();
-        Grid grid = box != null || radii != null || points != null ? grid(body) : null;
+        Grid grid = gridKind != null ? grid(body) : null;
         w.printf(Locale.ROOT, "Model: %s (%s), Brillouin radius %.1f m%n", body.source(), field.describe(), rb);
         TableBench.Report r = TableBench.run(field, body.mesh(), layout(body, grid != null ? grid
             : TableBench.defaultGrid(com, rb)), com, rb, benchSpacings, gradient, threads, checkSamples, seed);
