@@ -430,6 +430,10 @@ public final class TableField implements FieldModel {
         private final double[] val = new double[F];
         private final double[][] der = new double[F][3];
         private final double[] t = new double[9];
+        private final double[] wgt = new double[64];
+        private final double[] wgu = new double[64];
+        private final double[] wgv = new double[64];
+        private final double[] wgw = new double[64];
 
         @Override
         public void evaluate(double x, double y, double z, boolean gradient, double[] out, int o) {
@@ -470,57 +474,80 @@ public final class TableField implements FieldModel {
             basis(2, sh[0], sh[1]);
             int k1 = axes[2].periodic ? (k + 1) % n2 : k + 1;
             java.util.Arrays.fill(val, 0);
-            if (gradient) {
-                for (double[] d : der) {
-                    java.util.Arrays.fill(d, 0);
-                }
-            }
-            double locCode = Double.NaN;
-            boolean first = true;
-            boolean same = true;
+            // Weights of the 8 nodal data of the 8 corners: corner (a,b,c) = 4a+2b+c, datum k = 4α+2β+γ.
             for (int a = 0; a < 2; a++) {
                 for (int b = 0; b < 2; b++) {
                     for (int c = 0; c < 2; c++) {
-                        int nodeIdx = ((i + a) * n1 + (j + b)) * n2 + (c == 0 ? k : k1);
-                        double lc = loc[nodeIdx];
-                        if (first) {
-                            locCode = lc;
-                            first = false;
-                        } else if (Double.compare(lc, locCode) != 0) {
-                            same = false;
-                        }
-                        for (int q = 0; q < F; q++) {
-                            int base = (nodeIdx * F + q) * K;
-                            double s = 0;
-                            double su = 0;
-                            double sv = 0;
-                            double sw = 0;
-                            for (int al = 0; al < 2; al++) {
-                                for (int be = 0; be < 2; be++) {
-                                    for (int ga = 0; ga < 2; ga++) {
-                                        double cf = coef[base + 4 * al + 2 * be + ga];
-                                        double bu = wv[0][2 * a + al];
-                                        double bv = wv[1][2 * b + be];
-                                        double bw = wv[2][2 * c + ga];
-                                        s += cf * bu * bv * bw;
-                                        if (gradient) {
-                                            su += cf * wd[0][2 * a + al] * bv * bw;
-                                            sv += cf * bu * wd[1][2 * b + be] * bw;
-                                            sw += cf * bu * bv * wd[2][2 * c + ga];
-                                        }
+                        int cb = 8 * (4 * a + 2 * b + c);
+                        for (int al = 0; al < 2; al++) {
+                            double bu = wv[0][2 * a + al];
+                            double du = wd[0][2 * a + al];
+                            for (int be = 0; be < 2; be++) {
+                                double bv = wv[1][2 * b + be];
+                                double dv = wd[1][2 * b + be];
+                                for (int ga = 0; ga < 2; ga++) {
+                                    double bw = wv[2][2 * c + ga];
+                                    int idx = cb + 4 * al + 2 * be + ga;
+                                    wgt[idx] = bu * bv * bw;
+                                    if (gradient) {
+                                        wgu[idx] = du * bv * bw;
+                                        wgv[idx] = bu * dv * bw;
+                                        wgw[idx] = bu * bv * wd[2][2 * c + ga];
                                     }
                                 }
-                            }
-                            val[q] += s;
-                            if (gradient) {
-                                der[q][0] += su;
-                                der[q][1] += sv;
-                                der[q][2] += sw;
                             }
                         }
                     }
                 }
             }
+            double locCode = Double.NaN;
+            boolean same = true;
+            double u0 = 0;
+            double ax = 0;
+            double ay = 0;
+            double az = 0;
+            if (gradient) {
+                for (double[] d : der) {
+                    java.util.Arrays.fill(d, 0);
+                }
+            }
+            for (int corner = 0; corner < 8; corner++) {
+                int a = corner >> 2;
+                int b = (corner >> 1) & 1;
+                int c = corner & 1;
+                int nodeIdx = ((i + a) * n1 + (j + b)) * n2 + (c == 0 ? k : k1);
+                double lc = loc[nodeIdx];
+                if (corner == 0) {
+                    locCode = lc;
+                } else if (Double.compare(lc, locCode) != 0) {
+                    same = false;
+                }
+                int base = nodeIdx * F * K;
+                int cb = 8 * corner;
+                for (int m = 0; m < K; m++) {
+                    double wm = wgt[cb + m];
+                    u0 += coef[base + m] * wm;
+                    ax += coef[base + K + m] * wm;
+                    ay += coef[base + 2 * K + m] * wm;
+                    az += coef[base + 3 * K + m] * wm;
+                }
+                if (gradient) {
+                    for (int q = 0; q < F; q++) {
+                        double[] dq = der[q];
+                        int bq = base + q * K;
+                        for (int m = 0; m < K; m++) {
+                            double cf = coef[bq + m];
+                            dq[0] += cf * wgu[cb + m];
+                            dq[1] += cf * wgv[cb + m];
+                            dq[2] += cf * wgw[cb + m];
+                        }
+                    }
+                }
+            }
+            val[0] = u0;
+            val[1] = ax;
+            val[2] = ay;
+            val[3] = az;
             out[o + FieldSample.U] = val[0];
             out[o + FieldSample.AX] = val[1];
             out[o + FieldSample.AY] = val[2];
