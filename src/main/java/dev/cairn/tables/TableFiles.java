@@ -29,7 +29,8 @@ import java.util.Map;
  * {@code table.npy.json}). The data file holds only the numbers (no time stamps), so the same table always gives
  * the same bytes; times, model identity, units, conventions and the accuracy report live in the sidecar.
  *
- * <p>CSV: one header line of column names, then one row per node in node order, numbers written with
+ * <p>CSV: a comment line starting with {@code #} (caution and conventions), one header line of column names, then
+ * one row per node in node order, numbers written with
  * {@link Double#toString(double)} (shortest decimal that reads back to the same double; {@code NaN} for blanks).
  */
 public final class TableFiles {
@@ -85,7 +86,8 @@ public final class TableFiles {
                     rowsWritten[0] += count;
                 });
             } else if (CSV.equals(format)) {
-                o.write((String.join(",", columns) + "\n").getBytes(StandardCharsets.US_ASCII));
+                o.write(("# " + TableBuilder.CAUTION + " " + TableBuilder.CONVENTIONS + ".\n" + String.join(",", columns)
+                    + "\n").getBytes(StandardCharsets.UTF_8));
                 StringBuilder sb = new StringBuilder(1 << 16);
                 source.forEach((rows, count) -> {
                     for (int r = 0; r < count; r++) {
@@ -260,14 +262,18 @@ public final class TableFiles {
 
     private static void readCsv(Path data, List<String> columns, double[] values, int rows) throws IOException {
         int cols = columns.size();
-        try (BufferedReader r = Files.newBufferedReader(data, StandardCharsets.US_ASCII)) {
+        try (BufferedReader r = Files.newBufferedReader(data, StandardCharsets.UTF_8)) {
             String header = r.readLine();
+            long lineNo = 1;
+            while (header != null && header.startsWith("#")) {
+                header = r.readLine();
+                lineNo++;
+            }
             if (header == null || !header.equals(String.join(",", columns))) {
-                throw InputException.at(data.toString(), 1, "header does not match the sidecar's columns");
+                throw InputException.at(data.toString(), lineNo, "header does not match the sidecar's columns");
             }
             int row = 0;
             String line;
-            long lineNo = 1;
             while ((line = r.readLine()) != null) {
                 lineNo++;
                 if (line.isEmpty()) {
