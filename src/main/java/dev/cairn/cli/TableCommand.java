@@ -35,15 +35,20 @@ import picocli.CommandLine.Spec;
 
 /** {@code cairn table}: an acceleration table on a box, spherical or point grid, with an accuracy report. */
 @Command(name = "table", mixinStandardHelpOptions = true,
-    description = {"Tabulate potential and acceleration (optionally gradient tensor and effective quantities) on a grid",
-        "for fast interpolation in simulators. Writes FILE (.npy or .csv) and FILE.json (metadata, accuracy).",
-        "Conventions: SI units, model (body-fixed) frame, potential U > 0, acceleration = grad U.",
-        "Caution: results must be verified independently before operational use; mission rules and the",
-        "responsible flight-dynamics authority decide.",
+    description = {"Tabulate potential and acceleration (optionally the gradient tensor and",
+        "the effective quantities of the rotating body) on a grid, for fast",
+        "interpolation in simulators. Writes FILE (.npy or .csv) and FILE.json",
+        "(metadata and accuracy report). See docs/tables.md.",
+        "Conventions: SI units, model (body-fixed) frame, potential U > 0,",
+        "acceleration = grad U.",
+        "Caution: results must be verified independently before operational use;",
+        "mission rules and the responsible flight-dynamics authority decide.",
         "Examples:",
-        "  cairn table MODEL --grid box --box -3000,3000,-3000,3000,-2000,2000 --spacing 100 --gradient --out t.npy",
-        "  cairn table MODEL --grid sphere --radii 2000:6000:250 --lat-step 5 --lon-step 5 --out s.npy",
-        "  cairn table MODEL --grid points --points traj.csv --out p.csv"})
+        "  cairn table M.obj --grid box --box -3000,3000,-3000,3000,-2000,2000 \\",
+        "      --spacing 100 --gradient --out t.npy",
+        "  cairn table M.obj --grid sphere --radii 2000:6000:250 \\",
+        "      --lat-step 5 --lon-step 5 --out s.npy",
+        "  cairn table M.obj --grid points --points traj.csv --out p.csv"})
 public final class TableCommand implements Callable<Integer> {
     /** Default node limit without --force. */
     public static final int DEFAULT_MAX_NODES = 2_000_000;

@@ -18,12 +18,12 @@ import picocli.CommandLine.Spec;
 
 /** {@code cairn table-merge}: joins the shards of a table made with {@code cairn table --shard I/N}. */
 @Command(name = "table-merge", mixinStandardHelpOptions = true,
-    description = {"Merge table shards (made with 'cairn table ... --shard I/N') into one table. The data file is",
-        "byte-identical to the one a single run writes; the sidecar keeps the earliest shard's creation time.",
-        "No accuracy report is made here: run 'cairn table' on a coarse grid of the same model for one, or check",
-        "the merged table in your simulator against the exact field.",
-        "Caution: results must be verified independently before operational use; mission rules and the",
-        "responsible flight-dynamics authority decide."})
+    description = {"Merge table shards (made with 'cairn table ... --shard I/N') into one",
+        "table. The data file is byte-identical to the one a single run writes;",
+        "the sidecar keeps the earliest shard's creation time. No accuracy report",
+        "is made here (run 'cairn table' on a coarse grid of the same model).",
+        "Caution: results must be verified independently before operational use;",
+        "mission rules and the responsible flight-dynamics authority decide."})
 public final class TableMergeCommand implements Callable<Integer> {
     @Parameters(arity = "1..*", paramLabel = "SHARD", description = "Shard data files (any order).")
     List<Path> shards;
