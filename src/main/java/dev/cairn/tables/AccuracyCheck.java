@@ -41,6 +41,9 @@ public final class AccuracyCheck {
         Map<String, Object> toJson() {
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("points", count);
+            if (count == 0) {
+                return m; // no statistics of an empty group (JSON has no NaN)
+            }
             m.put("max", max);
             m.put("rms", rms);
             m.put("p50", p50);
