@@ -198,14 +198,13 @@ public final class TableField implements FieldModel {
         j[8] = 0;
     }
 
-    /** ∇f · ∂P/∂u_a. On a box this is exactly the a-th component (products by 1 and 0). */
-    private boolean isBox() {
-        return !spherical;
-    }
-
+    /**
+     * ∇f · ∂P/∂u_a, the derivative along grid coordinate a. On a box it is the a-th component itself (taken directly,
+     * so that it stays exact and a NaN in another component does not leak in through a product with 0).
+     */
     private double chain(double[] j, int a, double gx, double gy, double gz) {
-        if (isBox()) {
-            return a == 0 ? gx : a == 1 ? gy : gz; // exact: no products by 0 that would turn a NaN elsewhere in
+        if (!spherical) {
+            return a == 0 ? gx : a == 1 ? gy : gz;
         }
         return gx * j[a] + gy * j[3 + a] + gz * j[6 + a];
     }
