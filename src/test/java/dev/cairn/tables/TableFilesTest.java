@@ -31,6 +31,13 @@ class TableFilesTest {
     Path dir;
 
     private static final double DENSITY = 2000;
+    /**
+     * The test computes |r⊥|² as |r|² − (r·ω̂)², the code from the perpendicular vector: equal up to rounding
+     * (common practice, no source).
+     */
+    private static final double EFFECTIVE_ROUNDING = 1e-12;
+    /** Absolute floor for the effective x acceleration where g_x and ω²r_x nearly cancel, m/s^2. */
+    private static final double EFFECTIVE_FLOOR = 1e-18;
     private final PolyhedronField body = new PolyhedronField(Shapes.icosphere(2, 1000), DENSITY);
 
     private TableLayout layout(Grid g, boolean excludeInterior) {
@@ -79,16 +86,18 @@ class TableFilesTest {
                     for (int k = 0; k < 6; k++) {
                         assertEquals(s[FieldSample.GXX + k], t.value(n, TableLayout.BASE_COLUMNS + k), 0.0);
                     }
-                    // Effective potential: U + ½ω²|r⊥|², r⊥ ⟂ the axis (0, 0.6, 0.8) through (1, 2, 3).
+                    // Effective potential of a uniformly rotating frame: U + ½ω²|r⊥|² and g + ω²r⊥, r⊥ ⟂ the axis
+                    // (0, 0.6, 0.8) through (1, 2, 3) (centrifugal potential; e.g. Scheeres 2012, Orbital Motion in
+                    // Strongly Perturbed Environments, ch. 2; from memory).
                     double rx = p[0] - 1;
                     double ry = p[1] - 2;
                     double rz = p[2] - 3;
                     double al = 0.6 * ry + 0.8 * rz;
                     double perp2 = rx * rx + ry * ry + rz * rz - al * al;
                     assertEquals(s[FieldSample.U] + 0.5 * w2 * perp2, t.value(n, TableLayout.BASE_COLUMNS + 6),
-                        1e-12 * Math.abs(s[FieldSample.U]), "effective potential");
+                        EFFECTIVE_ROUNDING * Math.abs(s[FieldSample.U]), "effective potential");
                     assertEquals(s[FieldSample.AX] + w2 * rx, t.value(n, TableLayout.BASE_COLUMNS + 7),
-                        1e-12 * Math.abs(s[FieldSample.AX]) + 1e-18, "effective ax");
+                        EFFECTIVE_ROUNDING * Math.abs(s[FieldSample.AX]) + EFFECTIVE_FLOOR, "effective ax");
                     if (t.value(n, TableLayout.LOCATION) == Location.INSIDE.code()) {
                         interior++;
                     }
