@@ -17,11 +17,11 @@ import picocli.CommandLine.Command;
         "Caution: results must be verified independently before operational use; mission rules and the",
         "responsible flight-dynamics authority decide."},
     subcommands = {
+        TableCommand.class,
+        TableMergeCommand.class,
         InspectCommand.class,
         FieldCommand.class,
         BenchCommand.class,
-        TableCommand.class,
-        TableMergeCommand.class,
         CommandLine.HelpCommand.class})
 public final class CairnMain implements Runnable {
     /** Exit code for bad input. */
