@@ -267,7 +267,7 @@ public final class TableBuilder {
         });
         Map<String, Object> meta = new LinkedHashMap<>(first);
         meta.remove("shard");
-        meta.remove("accuracy");
+        meta.remove("accuracy"); // shards carry none; the merge command adds one when it can
         meta.put("created_utc", created);
         meta.put("finished_utc", finishedUtc);
         putData(meta, out, fmt, shape, sha);

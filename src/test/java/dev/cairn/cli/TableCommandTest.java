@@ -114,7 +114,7 @@ class TableCommandTest {
     @Test
     void resumeAndShardsFromTheCommandLineGiveByteIdenticalFiles() throws IOException {
         String[] grid = {"--grid", "box", "--box", "-2000,2000,-2000,2000,-2000,2000", "--spacing", "400",
-            "--chunk-nodes", "100", "--check-samples", "0"};
+            "--chunk-nodes", "100", "--check-samples", "200"};
         Path single = dir.resolve("single.npy");
         assertEquals(0, run(concat(grid, "--out", single.toString())), lastErr);
         Path resumed = dir.resolve("resumed.npy");
@@ -131,11 +131,15 @@ class TableCommandTest {
             merge.add(s.toString());
         }
         Path merged = dir.resolve("merged.npy");
-        merge.addAll(List.of("--out", merged.toString()));
+        merge.addAll(List.of("--out", merged.toString(), "--check-samples", "200"));
         StringWriter err = new StringWriter();
         assertEquals(0, CairnMain.execute(new PrintWriter(new StringWriter()), new PrintWriter(err),
             merge.toArray(new String[0])), err.toString());
         assertArrayEquals(Files.readAllBytes(single), Files.readAllBytes(merged));
+        // The merge makes the same accuracy report as the single run (same table, same seeded points).
+        Object singleAcc = TableFiles.readJson(TableFiles.sidecarPath(single)).get("accuracy");
+        assertTrue(singleAcc instanceof Map<?, ?>, "single run has an accuracy report");
+        assertEquals(singleAcc, TableFiles.readJson(TableFiles.sidecarPath(merged)).get("accuracy"));
     }
 
     private static String[] concat(String[] a, String... b) {
