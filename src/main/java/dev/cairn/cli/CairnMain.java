@@ -21,6 +21,8 @@ import picocli.CommandLine.Command;
         InspectCommand.class,
         FieldCommand.class,
         CompareCommand.class,
+        TableCommand.class,
+        TableMergeCommand.class,
         BenchCommand.class,
         dev.cairn.viewer.ViewCommand.class,
         dev.cairn.viewer.RenderCommand.class,
