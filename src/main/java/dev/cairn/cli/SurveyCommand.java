@@ -61,6 +61,10 @@ public final class SurveyCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all processors).")
     int threads = ParallelChunks.defaultThreads();
 
+    @Option(names = "--views", description = "Also render 3D views (slope and landing zones, iso and spin-pole "
+        + "views) to PNG with the 'render' command; needs a display (e.g. xvfb-run), skipped with a warning without.")
+    boolean views;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -83,7 +87,39 @@ public final class SurveyCommand implements Callable<Integer> {
         }
         SurveyOutputs.writeAll(r, out);
         report(spec.commandLine().getOut(), r);
+        if (views) {
+            renderViews(body, err);
+        }
         return 0;
+    }
+
+    /** Views added by {@code --views}: quantity and view direction for the {@code render} command. */
+    private static final String[][] VIEWS = {{"slope", "iso"}, {"slope", "+z"}, {"zones", "iso"}, {"g-eff", "iso"}};
+
+    /**
+     * Renders the survey's 3D views through the {@code render} subcommand (so that this package needs no JavaFX).
+     * Without a display the first failure ends the attempt with one warning.
+     */
+    private void renderViews(BodyModel body, PrintWriter err) {
+        for (String[] v : VIEWS) {
+            java.util.List<String> args = new java.util.ArrayList<>(java.util.List.of("render",
+                body.source().toString()));
+            if (body.source().toString().endsWith(".obj")) {
+                args.addAll(java.util.List.of("--units", body.lengthUnit()));
+            }
+            Path png = out.resolve("view-" + v[0] + "-" + v[1].replace("+", "plus") + ".png");
+            args.addAll(java.util.List.of("--survey", out.toString(), "--quantity", v[0], "--view", v[1],
+                "--out", png.toString()));
+            java.io.StringWriter renderErr = new java.io.StringWriter();
+            int code = CairnMain.execute(new PrintWriter(new java.io.StringWriter()), new PrintWriter(renderErr),
+                args.toArray(new String[0]));
+            if (code != 0) {
+                err.println("cairn: warning: 3D views skipped: " + renderErr.toString().strip().replaceFirst(
+                    "^cairn: error: ", ""));
+                return;
+            }
+            err.println("cairn: wrote " + png);
+        }
     }
 
     /** Checks the options and builds the survey parameters; bad values give a one-line InputException. */
