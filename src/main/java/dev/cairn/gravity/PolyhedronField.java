@@ -294,7 +294,14 @@ public final class PolyhedronField implements FieldModel {
                 if (!(den > 0)) {
                     continue; // on the edge or its vertex: E_e·r_e = 0 there, the term's limit is 0
                 }
-                double le = Math.log((s + len) / den);
+                // L_e = ln(1 + lx), lx = 2e/(a+b−e). Far away lx is tiny and ln(fl(1 + lx)) alone would lose digits
+                // (relative error ~1e-16/lx); subtract the rounding error of 1 + lx, exact for lx < 1 (Sterbenz).
+                double lx = 2 * len / den;
+                double lx1 = 1 + lx;
+                double le = Math.log(lx1);
+                if (lx < 1) {
+                    le -= (lx1 - 1) - lx;
+                }
                 int q = 6 * e;
                 double exx = edy[q];
                 double exy = edy[q + 1];
@@ -341,14 +348,21 @@ public final class PolyhedronField implements FieldModel {
                 double n1 = rn[i1];
                 double n2 = rn[i2];
                 double n3 = rn[i3];
-                double num = r1x * (r2y * r3z - r2z * r3y) + r1y * (r2z * r3x - r2x * r3z)
-                    + r1z * (r2x * r3y - r2y * r3x);
+                // r1·(r2×r3) = r1·((r2−r1)×(r3−r1)): with the short edge vectors, far away the cross product does not
+                // cancel (the plain triple product loses ~D² digits at distance D body sizes).
+                double ux = r2x - r1x;
+                double uy = r2y - r1y;
+                double uz = r2z - r1z;
+                double vx = r3x - r1x;
+                double vy = r3y - r1y;
+                double vz = r3z - r1z;
+                double num = r1x * (uy * vz - uz * vy) + r1y * (uz * vx - ux * vz) + r1z * (ux * vy - uy * vx);
                 double prod = n1 * n2 * n3;
                 double den = prod + n1 * (r2x * r3x + r2y * r3y + r2z * r3z)
                     + n2 * (r3x * r1x + r3y * r1y + r3z * r1z) + n3 * (r1x * r2x + r1y * r2y + r1z * r2z);
                 double omega;
-                if (Math.abs(num) <= ON_FACET_TOLERANCE * prod && den <= ON_FACET_TOLERANCE * prod) {
-                    onSurface = true; // in the facet's plane and within it (interior, edge or vertex)
+                if (!(prod > 0) || Math.abs(num) <= ON_FACET_TOLERANCE * prod && den <= ON_FACET_TOLERANCE * prod) {
+                    onSurface = true; // on a vertex of the facet (prod = 0), or in its plane and within it
                     continue;
                 }
                 omega = 2 * Math.atan2(num, den);
