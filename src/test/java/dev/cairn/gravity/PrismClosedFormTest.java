@@ -93,6 +93,21 @@ class PrismClosedFormTest {
         TestShapes.achieved("prism closed form, edges/vertices, max relative error", worst);
     }
 
+    @Test
+    void pointsCloseToEdgesAndVerticesMatchClosedForm() {
+        // Shared references §1 [V]: close to an edge a+b−e cancels unless computed in a cancellation-free form.
+        List<double[]> pts = new ArrayList<>();
+        for (double d : new double[] {1e-4, 1e-7, 1e-10, 1e-13}) {
+            pts.add(new double[] {2.0, -2.0 - d, 0.5 - d});        // outside, near the edge along x
+            pts.add(new double[] {2.0, -2.0 + d, 0.5 + d});        // inside, near the same edge
+            pts.add(new double[] {1.0 - d, -0.5 + d, 1.1});        // near the edge along z, across both faces
+            pts.add(new double[] {3.0 + d, -0.5 + d, 1.5 + d});    // near a vertex, outside
+            pts.add(new double[] {3.0 - d, -0.5 - d, 1.5 - d});    // near a vertex, inside
+        }
+        double worst = compare(pts.toArray(new double[0][]), REL_TOL_EDGE);
+        TestShapes.achieved("prism closed form, 1e-4..1e-13 from edges/vertices, max relative error", worst);
+    }
+
     /** Relative errors: |ΔU|/|U| and |Δg|/|g| (vector norm; the box centre, where g = 0, is checked separately). */
     private double compare(double[][] pts, double tol) {
         double worst = 0;
