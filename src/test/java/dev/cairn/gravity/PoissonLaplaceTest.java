@@ -83,6 +83,9 @@ class PoissonLaplaceTest {
         // A diagonal edge inside a face (two coplanar facets) is a facet interior point: 2π.
         double[] diag = at(box, 0.25, 2.5, 0.5);
         assertEquals(-2 * Math.PI, diag[FieldSample.LAPLACIAN], LAPLACIAN_REL_TOL * Math.PI, "face diagonal");
+        TestShapes.achieved("Laplacian on box edge / corner / face diagonal, max error / π", Math.max(
+            Math.abs(edge[FieldSample.LAPLACIAN] + Math.PI), Math.max(Math.abs(corner[FieldSample.LAPLACIAN] + Math.PI / 2),
+            Math.abs(diag[FieldSample.LAPLACIAN] + 2 * Math.PI))) / Math.PI);
     }
 
     @Test

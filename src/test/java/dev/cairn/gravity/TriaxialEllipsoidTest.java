@@ -88,6 +88,9 @@ class TriaxialEllipsoidTest {
         double[] q = coefficients(0);
         // shared references §3 [V], a,b,c = 3,2,1
         assertEquals(2.0, abc * (q[1] + q[2] + q[3]), IDENTITY_TOL, "abc(Ax+Ay+Az) = 2");
+        TestShapes.achieved("ellipsoid identity abc(Ax+Ay+Az) - 2", Math.abs(abc * (q[1] + q[2] + q[3]) - 2));
+        TestShapes.achieved("ellipsoid abc·A vs 7-8 digit reference, max abs. difference", Math.max(
+            Math.abs(abc * q[1] - 0.3126014), Math.max(Math.abs(abc * q[2] - 0.53430808), Math.abs(abc * q[3] - 1.15309052))));
         assertEquals(0.3126014, abc * q[1], COEFF_TABLE_TOL);
         assertEquals(0.53430808, abc * q[2], COEFF_TABLE_TOL);
         assertEquals(1.15309052, abc * q[3], COEFF_TABLE_TOL);
@@ -108,6 +111,8 @@ class TriaxialEllipsoidTest {
 
     private static void rel(double expected, double actual, String what) {
         assertEquals(expected, actual, TABLE_REL_TOL * Math.abs(expected), what);
+        TestShapes.achieved("ellipsoid reference value " + what + ", relative error",
+            Math.abs(expected - actual) / Math.abs(expected));
     }
 
     @Test
