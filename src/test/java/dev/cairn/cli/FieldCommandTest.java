@@ -117,6 +117,10 @@ class FieldCommandTest {
         Path bad = TestShapes.write(dir.resolve("bad.csv"), "x,y,z\n1,2,3\n\n4,five,6\n");
         badInput(bad + ":4: row 4: 'five' is not a finite number", "field", box.toString(), "--density", "2000",
             "--points", bad.toString());
+        // regression: a malformed first row used to be skipped silently as if it were a header
+        Path badFirst = TestShapes.write(dir.resolve("badfirst.csv"), "# points\nabc,1,2\n1,2,3\n");
+        badInput(badFirst + ":2: row 2: 'abc' is not a finite number", "field", box.toString(), "--density", "2000",
+            "--points", badFirst.toString());
         Path shortRow = TestShapes.write(dir.resolve("short.csv"), "1,2,3\n4,5\n");
         badInput(shortRow + ":2: row 2 has 2 field(s), expected x,y,z", "field", box.toString(), "--density", "2000",
             "--points", shortRow.toString());
