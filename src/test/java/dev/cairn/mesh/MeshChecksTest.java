@@ -108,6 +108,38 @@ class MeshChecksTest {
         assertTrue(r.signedVolume() < smooth && r.signedVolume() > 0.9 * smooth, "volume " + r.signedVolume());
     }
 
+    /**
+     * An inward-facing component that is not a cavity inside another component must be flipped (with a warning) or
+     * refused; an inward component enclosed by an outward one is a legitimate cavity and must stay as it is.
+     */
+    @org.junit.jupiter.api.Disabled("bug: two disjoint closed components, one facing inward, have total signed volume"
+        + " 0, so the mesh is neither flipped nor refused and the inward cube attracts with negative mass; a fix needs"
+        + " per-component signed volumes plus an enclosure test (an inward component inside another is a cavity)")
+    @Test
+    void oneInwardComponentOfTwoIsFlippedOrRefused(@org.junit.jupiter.api.io.TempDir Path dir) {
+        TriangleMesh a = Shapes.box(0, 0, 0, 1, 1, 1);
+        TriangleMesh b = Shapes.box(3, 0, 0, 4, 1, 1).flipped();
+        double[] xyz = new double[48];
+        System.arraycopy(a.xyz(), 0, xyz, 0, 24);
+        System.arraycopy(b.xyz(), 0, xyz, 24, 24);
+        int[] tri = new int[72];
+        System.arraycopy(a.tri(), 0, tri, 0, 36);
+        for (int i = 0; i < 36; i++) {
+            tri[36 + i] = b.tri()[i] + 8;
+        }
+        Path obj = TestShapes.write(dir.resolve("pair.obj"), TestShapes.objText(new TriangleMesh(xyz, tri), 1));
+        BodyModel body = ModelLoader.load(obj, DENSITY);
+        try {
+            double[] s = new double[dev.cairn.gravity.FieldSample.SIZE];
+            body.fieldModel().newEvaluator().evaluate(3.5, 0.5, 0.5, false, s, 0);
+            // Both cubes attract: U at the second cube's centre exceeds the unit cube's own centre value (§2).
+            assertTrue(s[dev.cairn.gravity.FieldSample.U] > 2.380077363979554 * dev.cairn.gravity.Constants.G * 2000.0);
+            assertTrue(!body.warnings().isEmpty(), "a flip must be reported");
+        } catch (InputException refused) {
+            assertTrue(refused.getMessage().contains("inward"), refused.getMessage());
+        }
+    }
+
     @Test
     void twoSeparateBodiesAreTwoComponents() {
         TriangleMesh a = Shapes.box(0, 0, 0, 1, 1, 1);
