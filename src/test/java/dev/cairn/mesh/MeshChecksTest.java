@@ -108,35 +108,63 @@ class MeshChecksTest {
         assertTrue(r.signedVolume() < smooth && r.signedVolume() > 0.9 * smooth, "volume " + r.signedVolume());
     }
 
-    /**
-     * An inward-facing component that is not a cavity inside another component must be flipped (with a warning) or
-     * refused; an inward component enclosed by an outward one is a legitimate cavity and must stay as it is.
-     */
-    @org.junit.jupiter.api.Disabled("bug: two disjoint closed components, one facing inward, have total signed volume"
-        + " 0, so the mesh is neither flipped nor refused and the inward cube attracts with negative mass; a fix needs"
-        + " per-component signed volumes plus an enclosure test (an inward component inside another is a cavity)")
-    @Test
-    void oneInwardComponentOfTwoIsFlippedOrRefused(@org.junit.jupiter.api.io.TempDir Path dir) {
-        TriangleMesh a = Shapes.box(0, 0, 0, 1, 1, 1);
-        TriangleMesh b = Shapes.box(3, 0, 0, 4, 1, 1).flipped();
-        double[] xyz = new double[48];
-        System.arraycopy(a.xyz(), 0, xyz, 0, 24);
-        System.arraycopy(b.xyz(), 0, xyz, 24, 24);
-        int[] tri = new int[72];
-        System.arraycopy(a.tri(), 0, tri, 0, 36);
-        for (int i = 0; i < 36; i++) {
-            tri[36 + i] = b.tri()[i] + 8;
+    /** Joins two meshes into one (vertex indices of the second shifted). */
+    private static TriangleMesh union(TriangleMesh a, TriangleMesh b) {
+        double[] xyz = new double[a.xyz().length + b.xyz().length];
+        System.arraycopy(a.xyz(), 0, xyz, 0, a.xyz().length);
+        System.arraycopy(b.xyz(), 0, xyz, a.xyz().length, b.xyz().length);
+        int[] tri = new int[a.tri().length + b.tri().length];
+        System.arraycopy(a.tri(), 0, tri, 0, a.tri().length);
+        for (int i = 0; i < b.tri().length; i++) {
+            tri[a.tri().length + i] = b.tri()[i] + a.vertexCount();
         }
-        Path obj = TestShapes.write(dir.resolve("pair.obj"), TestShapes.objText(new TriangleMesh(xyz, tri), 1));
+        return new TriangleMesh(xyz, tri);
+    }
+
+    private static double[] sample(BodyModel body, double x, double y, double z) {
+        double[] s = new double[dev.cairn.gravity.FieldSample.SIZE];
+        body.fieldModel().newEvaluator().evaluate(x, y, z, false, s, 0);
+        return s;
+    }
+
+    /**
+     * Regression: two disjoint closed components, one facing inward, have total signed volume 0 and were neither
+     * flipped nor refused, so the inward cube attracted with negative mass. Now it is flipped with a warning.
+     */
+    @Test
+    void inwardComponentOutsideTheOthersIsFlipped(@org.junit.jupiter.api.io.TempDir Path dir) {
+        TriangleMesh pair = union(Shapes.box(0, 0, 0, 1, 1, 1), Shapes.box(3, 0, 0, 4, 1, 1).flipped());
+        Path obj = TestShapes.write(dir.resolve("pair.obj"), TestShapes.objText(pair, 1));
         BodyModel body = ModelLoader.load(obj, DENSITY);
-        try {
-            double[] s = new double[dev.cairn.gravity.FieldSample.SIZE];
-            body.fieldModel().newEvaluator().evaluate(3.5, 0.5, 0.5, false, s, 0);
-            // Both cubes attract: U at the second cube's centre exceeds the unit cube's own centre value (§2).
-            assertTrue(s[dev.cairn.gravity.FieldSample.U] > 2.380077363979554 * dev.cairn.gravity.Constants.G * 2000.0);
-            assertTrue(!body.warnings().isEmpty(), "a flip must be reported");
-        } catch (InputException refused) {
-            assertTrue(refused.getMessage().contains("inward"), refused.getMessage());
+        assertEquals(1, body.warnings().size(), body.warnings().toString());
+        assertTrue(body.warnings().get(0).startsWith(obj + ": 1 of 2 closed component(s) face inward and lie outside"
+            + " the others (first facet, 1-based: 13)"), body.warnings().get(0));
+        assertEquals(2.0, body.massProperties().volume(), 1e-14);
+        // Both cubes attract: U at the second cube's centre exceeds the unit cube's own centre value (references §2).
+        double[] s = sample(body, 3.5, 0.5, 0.5);
+        assertTrue(s[dev.cairn.gravity.FieldSample.U] > 2.380077363979554 * dev.cairn.gravity.Constants.G * 2000.0);
+        assertEquals(dev.cairn.gravity.Location.INSIDE,
+            dev.cairn.gravity.Location.fromCode(s[dev.cairn.gravity.FieldSample.LOCATION]));
+    }
+
+    /** An inward component inside an outward one is a cavity: kept, no warning; also when the whole file is inside out. */
+    @Test
+    void inwardComponentInsideAnotherIsACavity(@org.junit.jupiter.api.io.TempDir Path dir) {
+        TriangleMesh hollow = union(Shapes.box(0, 0, 0, 3, 3, 3), Shapes.box(1, 1, 1, 2, 2, 2).flipped());
+        for (boolean insideOut : new boolean[] {false, true}) {
+            Path obj = TestShapes.write(dir.resolve("hollow-" + insideOut + ".obj"),
+                TestShapes.objText(insideOut ? hollow.flipped() : hollow, 1));
+            BodyModel body = ModelLoader.load(obj, DENSITY);
+            assertEquals(insideOut ? 1 : 0, body.warnings().size(), body.warnings().toString());
+            assertEquals(26.0, body.massProperties().volume(), 1e-13, "27 - 1 m^3");
+            // The cavity's centre is outside the material: Laplace's equation holds there (Σω = 4π − 4π = 0).
+            double[] s = sample(body, 1.5, 1.5, 1.5);
+            assertEquals(dev.cairn.gravity.Location.OUTSIDE,
+                dev.cairn.gravity.Location.fromCode(s[dev.cairn.gravity.FieldSample.LOCATION]));
+            double gRho = dev.cairn.gravity.Constants.G * 2000.0;
+            assertEquals(0.0, s[dev.cairn.gravity.FieldSample.LAPLACIAN], 1e-13 * 4 * Math.PI * gRho);
+            // By symmetry g = 0 at the common centre (shell-like cavity, Newton).
+            assertEquals(0.0, dev.cairn.gravity.FieldSample.accelerationNorm(s, 0), 1e-13 * gRho * 3);
         }
     }
 
