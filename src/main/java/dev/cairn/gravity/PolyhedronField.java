@@ -28,6 +28,8 @@ import dev.cairn.mesh.TriangleMesh;
  * <li>Exactly on a facet its own ω is ±2π by the sign of a rounded zero; a point within
  *     {@link #ON_FACET_TOLERANCE} (relative) of a facet's plane and inside it is classified {@link Location#SURFACE}
  *     and that facet's ω set to 0 (its {@code F_f·r_f} vanishes there anyway), so Σω = 2π on a facet interior.</li>
+ * <li>{@code atan2} and {@code log} come from {@link KernelMath}: table-plus-series versions accurate to the last
+ *     few bits and about twice as fast as {@link Math}'s on Java 17.</li>
  * <li>Coordinates are stored relative to the vertex centroid and field points shifted likewise, which limits
  *     round-off far away.</li>
  * </ul>
@@ -229,8 +231,8 @@ public final class PolyhedronField implements FieldModel {
 
     /** Per-thread scratch: vertex offsets and distances for the current field point. */
     private final class Evaluator implements FieldEvaluator {
-        private final double[] r = new double[3 * vertexCount];
-        private final double[] rn = new double[vertexCount];
+        /** Per vertex: offset x, y, z from the field point and its length, interleaved for locality. */
+        private final double[] r = new double[4 * vertexCount];
 
         @Override
         public void evaluate(double x, double y, double z, boolean gradient, double[] out, int o) {
@@ -238,16 +240,15 @@ public final class PolyhedronField implements FieldModel {
             final double py = y - oy;
             final double pz = z - oz;
             final double[] r = this.r;
-            final double[] rn = this.rn;
             final double[] pv = PolyhedronField.this.pv;
-            for (int i = 0, k = 0; i < vertexCount; i++, k += 3) {
+            for (int i = 0, k = 0, q = 0; i < vertexCount; i++, k += 3, q += 4) {
                 double rx = pv[k] - px;
                 double ry = pv[k + 1] - py;
                 double rz = pv[k + 2] - pz;
-                r[k] = rx;
-                r[k + 1] = ry;
-                r[k + 2] = rz;
-                rn[i] = Math.sqrt(rx * rx + ry * ry + rz * rz);
+                r[q] = rx;
+                r[q + 1] = ry;
+                r[q + 2] = rz;
+                r[q + 3] = Math.sqrt(rx * rx + ry * ry + rz * rz);
             }
             double u = 0;
             double gx = 0;
@@ -263,44 +264,42 @@ public final class PolyhedronField implements FieldModel {
             final double[] edy = PolyhedronField.this.edy;
             final double[] elen = PolyhedronField.this.elen;
             for (int e = 0; e < edgeCount; e++) {
-                int i = ev[2 * e];
-                int j = ev[2 * e + 1];
-                double a = rn[i];
-                double b = rn[j];
-                double len = elen[e];
-                double s = a + b;
-                int ki = 3 * i;
-                int kj = 3 * j;
+                int ki = 4 * ev[2 * e];
+                int kj = 4 * ev[2 * e + 1];
                 double rix = r[ki];
                 double riy = r[ki + 1];
                 double riz = r[ki + 2];
+                double a = r[ki + 3];
                 double rjx = r[kj];
                 double rjy = r[kj + 1];
                 double rjz = r[kj + 2];
+                double b = r[kj + 3];
+                double len = elen[e];
+                double s = a + b;
                 double dot = rix * rjx + riy * rjy + riz * rjz;
-                double den;
+                double le;
                 if (dot < 0) {
-                    // Near the edge's interior: a+b-e = 2|r_i × d|^2 / ((ab - r_i·r_j)(a+b+e)), no cancellation.
+                    // Near the edge's interior a+b-e cancels; use a+b-e = 2|r_i × d|^2 / ((ab - r_i·r_j)(a+b+e)),
+                    // so L = ln((a+b+e)^2 (ab - r_i·r_j) / (2|r_i × d|^2)).
                     double dx = rjx - rix;
                     double dy = rjy - riy;
                     double dz = rjz - riz;
                     double cx = riy * dz - riz * dy;
                     double cy = riz * dx - rix * dz;
                     double cz = rix * dy - riy * dx;
-                    den = 2 * (cx * cx + cy * cy + cz * cz) / ((a * b - dot) * (s + len));
+                    double c2 = cx * cx + cy * cy + cz * cz;
+                    if (!(c2 > 0)) {
+                        continue; // on the edge: E_e·r_e = 0 there, the term's limit is 0
+                    }
+                    double sp = s + len;
+                    le = KernelMath.log(sp * sp * (a * b - dot) / (2 * c2));
                 } else {
-                    den = s - len;
-                }
-                if (!(den > 0)) {
-                    continue; // on the edge or its vertex: E_e·r_e = 0 there, the term's limit is 0
-                }
-                // L_e = ln(1 + lx), lx = 2e/(a+b−e). Far away lx is tiny and ln(fl(1 + lx)) alone would lose digits
-                // (relative error ~1e-16/lx); subtract the rounding error of 1 + lx, exact for lx < 1 (Sterbenz).
-                double lx = 2 * len / den;
-                double lx1 = 1 + lx;
-                double le = Math.log(lx1);
-                if (lx < 1) {
-                    le -= (lx1 - 1) - lx;
+                    double den = s - len;
+                    if (!(den > 0)) {
+                        continue; // at a vertex of the edge: the term's limit is 0
+                    }
+                    // ln(1 + x), x = 2e/(a+b−e): far away x is tiny and ln of the rounded ratio would lose digits.
+                    le = KernelMath.log1p(2 * len / den);
                 }
                 int q = 6 * e;
                 double exx = edy[q];
@@ -333,9 +332,9 @@ public final class PolyhedronField implements FieldModel {
                 int i1 = fv[3 * f];
                 int i2 = fv[3 * f + 1];
                 int i3 = fv[3 * f + 2];
-                int k1 = 3 * i1;
-                int k2 = 3 * i2;
-                int k3 = 3 * i3;
+                int k1 = 4 * i1;
+                int k2 = 4 * i2;
+                int k3 = 4 * i3;
                 double r1x = r[k1];
                 double r1y = r[k1 + 1];
                 double r1z = r[k1 + 2];
@@ -345,9 +344,9 @@ public final class PolyhedronField implements FieldModel {
                 double r3x = r[k3];
                 double r3y = r[k3 + 1];
                 double r3z = r[k3 + 2];
-                double n1 = rn[i1];
-                double n2 = rn[i2];
-                double n3 = rn[i3];
+                double n1 = r[k1 + 3];
+                double n2 = r[k2 + 3];
+                double n3 = r[k3 + 3];
                 // r1·(r2×r3) = r1·((r2−r1)×(r3−r1)): with the short edge vectors, far away the cross product does not
                 // cancel (the plain triple product loses ~D² digits at distance D body sizes).
                 double ux = r2x - r1x;
@@ -365,7 +364,7 @@ public final class PolyhedronField implements FieldModel {
                     onSurface = true; // on a vertex of the facet (prod = 0), or in its plane and within it
                     continue;
                 }
-                omega = 2 * Math.atan2(num, den);
+                omega = 2 * KernelMath.atan2(num, den);
                 int q = 6 * f;
                 double fxx = fdy[q];
                 double fxy = fdy[q + 1];

@@ -13,7 +13,7 @@ import java.nio.file.Path;
  * The optional JSON file {@code NAME.json} beside a model {@code NAME.obj}: the model's length unit, its density or
  * mass or GM, and its spin state. Every key is optional; command-line options override them. Keys are documented in
  * {@code docs/model-sidecar.md}. Unknown keys are refused (a misspelt key would otherwise be silently ignored),
- * except those starting with {@code "_"} or named {@code description}/{@code note}, which are free text.
+ * except the free-text keys {@code description}, {@code note}, {@code _comment} and {@code _note}.
  */
 @JsonIgnoreProperties(value = {"_comment", "_note"}, ignoreUnknown = false)
 public final class ModelSidecar {
