@@ -70,20 +70,16 @@ final class KernelMath {
         return Math.copySign(a, y);
     }
 
-    /** Below this argument {@link #log1p} sums its Taylor series (9 terms: truncation below 1e-19 relative). */
-    static final double LOG1P_SERIES_LIMIT = 1.0 / 128;
+    /** Largest argument for which {@link #log1pSmall} is accurate to a few ulp. */
+    static final double LOG1P_SMALL_LIMIT = 1.0 / 255;
 
     /**
-     * {@code ln(1 + x)} for {@code x ≥ 0}, to a few ulp relative for small x (where {@code log(1 + x)} would lose
-     * digits to the rounding of {@code 1 + x}: the far-field edge terms of the polyhedron kernel); above
-     * {@link #LOG1P_SERIES_LIMIT} it is {@code log(1 + x)}, accurate to about 6e-14 relative at the limit.
+     * {@code ln(1 + x)} for {@code 0 ≤ x ≤ 1/255} by its Taylor series to x⁸ (truncation below 2e-20 relative): a few
+     * ulp, where {@code log(1 + x)} would lose digits to the rounding of {@code 1 + x} (far-field edge terms).
      */
-    static double log1p(double x) {
-        if (x < LOG1P_SERIES_LIMIT) {
-            return x * (1 + x * (-1.0 / 2 + x * (1.0 / 3 + x * (-1.0 / 4 + x * (1.0 / 5 + x * (-1.0 / 6 + x * (1.0 / 7
-                + x * (-1.0 / 8 + x * (1.0 / 9)))))))));
-        }
-        return log(1 + x);
+    static double log1pSmall(double x) {
+        return x * (1 + x * (-1.0 / 2 + x * (1.0 / 3 + x * (-1.0 / 4 + x * (1.0 / 5 + x * (-1.0 / 6 + x * (1.0 / 7
+            + x * (-1.0 / 8))))))));
     }
 
     /** Natural logarithm; exact to a few ulp for positive normal arguments, {@link Math#log} otherwise. */

@@ -63,6 +63,11 @@ public final class PolyhedronField implements FieldModel {
     private final double[] edy;
     /** Edge lengths, m. */
     private final double[] elen;
+    /**
+     * Squared distance from the vertex centroid beyond which every edge is more than 256 edge lengths away, so every
+     * log argument x = 2e/(a+b−e) is below 1/255 and ln(1 + x) is summed as a series (far-field accuracy).
+     */
+    private final double farDistance2;
 
     /**
      * @param mesh    closed, consistently outward-oriented mesh without zero-area facets, metres (check it with
@@ -153,6 +158,15 @@ public final class PolyhedronField implements FieldModel {
             addEdgeDyad(sym, normals, fb, -dx, -dy, -dz);
             System.arraycopy(sym, 0, edy, 6 * e, 6);
         }
+        double rmax = 0;
+        for (int i = 0; i < pv.length; i += 3) {
+            rmax = Math.max(rmax, Math.sqrt(pv[i] * pv[i] + pv[i + 1] * pv[i + 1] + pv[i + 2] * pv[i + 2]));
+        }
+        double emax = 0;
+        for (double l : elen) {
+            emax = Math.max(emax, l);
+        }
+        farDistance2 = (rmax + 256 * emax) * (rmax + 256 * emax);
     }
 
     private static void addEdgeDyad(double[] sym, double[] normals, int f, double dx, double dy, double dz) {
@@ -239,6 +253,7 @@ public final class PolyhedronField implements FieldModel {
             final double px = x - ox;
             final double py = y - oy;
             final double pz = z - oz;
+            final boolean far = px * px + py * py + pz * pz > farDistance2; // same for every edge: no misprediction
             final double[] r = this.r;
             final double[] pv = PolyhedronField.this.pv;
             for (int i = 0, k = 0, q = 0; i < vertexCount; i++, k += 3, q += 4) {
@@ -298,8 +313,8 @@ public final class PolyhedronField implements FieldModel {
                     if (!(den > 0)) {
                         continue; // at a vertex of the edge: the term's limit is 0
                     }
-                    // ln(1 + x), x = 2e/(a+b−e): far away x is tiny and ln of the rounded ratio would lose digits.
-                    le = KernelMath.log1p(2 * len / den);
+                    // Far away x = 2e/(a+b−e) is tiny and ln of the rounded ratio (1 + x) would lose digits.
+                    le = far ? KernelMath.log1pSmall(2 * len / den) : KernelMath.log((s + len) / den);
                 }
                 int q = 6 * e;
                 double exx = edy[q];
