@@ -16,7 +16,8 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code cairn bench}: throughput of the polyhedron kernel in facet-evaluations per second (points × facets / time,
- * potential + acceleration), single thread and all threads, and bytes of precomputed state per facet. Figures, not
+ * potential + acceleration), single thread and all threads, and bytes of precomputed state per facet; then the
+ * mascon kernel in point-mass evaluations per second on a tetrahedral mascon set of the same body. Figures, not
  * assertions: machines are shared and noisy, so speed targets are checked here and never in unit tests.
  */
 @Command(name = "bench", mixinStandardHelpOptions = true,
@@ -31,6 +32,10 @@ public final class BenchCommand implements Callable<Integer> {
     @Option(names = "--repeat", paramLabel = "N", description = "Timed runs per configuration; the best counts "
         + "(default ${DEFAULT-VALUE}).")
     int repeat = 3;
+
+    @Option(names = "--mascons", paramLabel = "N", description = "Also time a tetrahedral mascon set of about N "
+        + "point masses (0: skip; default ${DEFAULT-VALUE}).")
+    int mascons = 20000;
 
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
@@ -65,8 +70,30 @@ public final class BenchCommand implements Callable<Integer> {
             out.printf(Locale.ROOT, "threads %d: %d points in %.3f s = %.1f M facet-evaluations/s (%.1f M per thread)%n",
                 threads, points, best, rate / 1e6, rate / 1e6 / threads);
         }
+        if (mascons > 0) {
+            benchMascons(out, body, xyz, all);
+        }
         out.flush();
         return 0;
+    }
+
+    /** Mascon kernel throughput in point-mass evaluations per second (points × mascons / time). */
+    private void benchMascons(PrintWriter out, BodyModel body, double[] xyz, int all) {
+        dev.cairn.mascon.MasconField field = new dev.cairn.mascon.MasconField(
+            MasconOptions.generate(body, "tetra", mascons, all));
+        out.printf(Locale.ROOT, "Mascons: %s%n", field.describe());
+        BatchEvaluation.evaluate(field, xyz, false, all, ProgressListener.NONE);
+        for (int threads : new int[] {1, all}) {
+            double best = Double.POSITIVE_INFINITY;
+            for (int k = 0; k < repeat; k++) {
+                long t0 = System.nanoTime();
+                BatchEvaluation.evaluate(field, xyz, false, threads, ProgressListener.NONE);
+                best = Math.min(best, (System.nanoTime() - t0) / 1e9);
+            }
+            double rate = (double) points * field.count() / best;
+            out.printf(Locale.ROOT, "threads %d: %d points in %.3f s = %.1f M point-mass evaluations/s (%.1f M per "
+                + "thread)%n", threads, points, best, rate / 1e6, rate / 1e6 / threads);
+        }
     }
 
     /** {@code n} seeded random points on the sphere of radius {@code r} about {@code c}. */

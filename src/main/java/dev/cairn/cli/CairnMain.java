@@ -17,9 +17,15 @@ import picocli.CommandLine.Command;
         "Caution: results must be verified independently before operational use; mission rules and the",
         "responsible flight-dynamics authority decide."},
     subcommands = {
+        SurveyCommand.class,
         InspectCommand.class,
         FieldCommand.class,
+        CompareCommand.class,
+        TableCommand.class,
+        TableMergeCommand.class,
         BenchCommand.class,
+        dev.cairn.viewer.ViewCommand.class,
+        dev.cairn.viewer.RenderCommand.class,
         CommandLine.HelpCommand.class})
 public final class CairnMain implements Runnable {
     /** Exit code for bad input. */

@@ -23,10 +23,15 @@ import picocli.CommandLine.Spec;
 @Command(name = "field", mixinStandardHelpOptions = true,
     description = {"Evaluate the gravity field at points given in a CSV file (x,y,z in metres, model frame).",
         "Output CSV: potential U > 0 (m^2/s^2), acceleration = grad U (m/s^2), Laplacian (1/s^2), location,",
-        "and with --gradient the gravity-gradient tensor (1/s^2)."})
+        "and with --gradient the gravity-gradient tensor (1/s^2).",
+        "MODEL may be a body description of density regions (.json). With --model mascon the Laplacian is 0 and the",
+        "location 'unknown'; a mass-property report of the mascon set goes to stderr."})
 public final class FieldCommand implements Callable<Integer> {
     @Mixin
     ModelOptions model = new ModelOptions();
+
+    @Mixin
+    MasconOptions fieldChoice = new MasconOptions();
 
     @Option(names = "--points", required = true, paramLabel = "FILE", description = "CSV of field points x,y,z in m.")
     Path points;
@@ -55,12 +60,13 @@ public final class FieldCommand implements Callable<Integer> {
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
         }
-        FieldModel field = fieldModel(body);
         double[] xyz = PointsCsv.read(points);
+        FieldModel field = fieldChoice.build(body, Math.max(1, threads), err);
         double[] res;
         try (ProgressBar bar = new ProgressBar("field")) {
             res = BatchEvaluation.evaluate(field, xyz, gradient, Math.max(1, threads), bar);
         }
+        MasconOptions.warnTooClose(field, xyz.length / 3, err);
         if (out == null) {
             PrintWriter o = spec.commandLine().getOut();
             StringBuilder sb = new StringBuilder();
@@ -72,11 +78,6 @@ public final class FieldCommand implements Callable<Integer> {
             err.println("cairn: wrote " + (xyz.length / 3) + " points to " + out);
         }
         return 0;
-    }
-
-    /** The field model for this command (the polyhedron; later issues add choices). */
-    FieldModel fieldModel(BodyModel body) {
-        return body.fieldModel();
     }
 
     private void writeTo(OutputStream os, double[] xyz, double[] res) throws IOException {

@@ -16,7 +16,8 @@ import picocli.CommandLine.Parameters;
  */
 public final class ModelOptions {
     @Parameters(index = "0", arity = "0..1", paramLabel = "MODEL",
-        description = "Shape model (OBJ). Default: the bundled demo body.")
+        description = "Shape model (OBJ) or body description of density regions (.json). Default: the bundled "
+            + "demo body.")
     Path model;
 
     @Option(names = "--units", paramLabel = "m|km", description = "Length unit of the OBJ coordinates (default: "

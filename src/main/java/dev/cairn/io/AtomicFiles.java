@@ -31,6 +31,12 @@ public final class AtomicFiles {
         try {
             Files.createDirectories(dir);
             tmp = Files.createTempFile(dir, "." + abs.getFileName() + ".", ".tmp");
+            try {
+                // createTempFile makes the file owner-only; outputs are ordinary files (rw-r--r--).
+                Files.setPosixFilePermissions(tmp, java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
+            } catch (UnsupportedOperationException ignored) {
+                // not a POSIX file system: keep the default permissions
+            }
             try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16)) {
                 writer.write(out);
             }

@@ -27,11 +27,20 @@ public final class BodyModel {
     private final double density;
     private final SpinState spin;
     private final ModelSidecar sidecar;
+    private final dev.cairn.regions.RegionBody regions;
     private MassProperties massProperties;
     private PolyhedronField field;
 
     BodyModel(Path source, TriangleMesh mesh, EdgeTable edges, MeshReport report, List<String> warnings,
               String lengthUnit, double density, SpinState spin, ModelSidecar sidecar) {
+        this(source, mesh, edges, report, warnings, lengthUnit, density, spin, sidecar, null);
+    }
+
+    /** As above, for a body description of density regions ({@code regions} non-null; density = bulk density). */
+    BodyModel(Path source, TriangleMesh mesh, EdgeTable edges, MeshReport report, List<String> warnings,
+              String lengthUnit, double density, SpinState spin, ModelSidecar sidecar,
+              dev.cairn.regions.RegionBody regions) {
+        this.regions = regions;
         this.source = source;
         this.mesh = mesh;
         this.edges = edges;
@@ -43,7 +52,16 @@ public final class BodyModel {
         this.sidecar = sidecar;
     }
 
-    /** The OBJ file. */
+    /**
+     * The density regions when this body was loaded from a body description (.json), else null. For such a body
+     * {@link #mesh()} is the outer shape, {@link #density()} the bulk density, {@link #massProperties()} and
+     * {@link #gm()} the regions' totals, and {@link #fieldModel()} their superposition.
+     */
+    public dev.cairn.regions.RegionBody regions() {
+        return regions;
+    }
+
+    /** The OBJ file (or the body description file). */
     public Path source() {
         return source;
     }
@@ -100,8 +118,14 @@ public final class BodyModel {
         return sidecar;
     }
 
-    /** Mass properties at the model's density (or 1 kg/m^3 when none was given: mass then equals volume). */
+    /**
+     * Mass properties at the model's density, or at 1 kg/m^3 when none was given (mass then equals volume). For a body
+     * description: the regions combined, inertia about the combined centre of mass.
+     */
     public synchronized MassProperties massProperties() {
+        if (massProperties == null && regions != null) {
+            massProperties = regions.massProperties();
+        }
         if (massProperties == null) {
             massProperties = MassPropertiesCalculator.compute(mesh, hasDensity() ? density : 1.0);
         }
@@ -114,7 +138,8 @@ public final class BodyModel {
     }
 
     /**
-     * The constant-density polyhedron field of this model.
+     * The constant-density polyhedron field of this model (a body description: the outer shape at the bulk density,
+     * which has the right GM but not the regions' field; use {@link #fieldModel()} for that).
      *
      * @throws InputException when the surface is not fit for the polyhedron field or no density was given
      */
@@ -128,13 +153,17 @@ public final class BodyModel {
     }
 
     /**
-     * The gravity field model of this body as loaded: the constant-density polyhedron for a plain shape model.
+     * The gravity field model of this body as loaded: the constant-density polyhedron for a plain shape model, the
+     * superposition of the regions' polyhedra for a body description.
      * Every command that evaluates "the field of the body" calls this, so that other body kinds (e.g. several
      * density regions) plug in here.
      *
      * @throws InputException when the field cannot be built (surface not fit, no density)
      */
     public FieldModel fieldModel() {
+        if (regions != null) {
+            return regions.superpositionField();
+        }
         return polyhedronField();
     }
 

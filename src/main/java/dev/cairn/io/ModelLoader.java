@@ -37,10 +37,17 @@ public final class ModelLoader {
         throw new InputException(where + ": unknown length unit '" + unit + "' (use m or km)");
     }
 
-    /** Loads {@code obj} with the given request. */
+    /**
+     * Loads {@code obj} with the given request. A path ending in {@code .json} is a body description of density
+     * regions ({@link dev.cairn.regions.RegionBodyLoader}; a model's own sidecar is never passed as the model, it is
+     * found beside its OBJ): the body's mesh is then the outer shape and its field the regions' superposition.
+     */
     public static BodyModel load(Path obj, ModelRequest req) {
         if (!Files.isRegularFile(obj)) {
             throw new InputException(obj + ": no such file");
+        }
+        if (dev.cairn.regions.RegionBodyLoader.isDescription(obj)) {
+            return loadDescription(obj, req);
         }
         Path sidecarPath = ModelSidecar.pathFor(obj);
         ModelSidecar side = Files.isRegularFile(sidecarPath) && !sidecarPath.equals(obj)
@@ -62,6 +69,27 @@ public final class ModelLoader {
         double density = resolveDensity(obj, req, side, sidecarPath, mesh, warnings);
         SpinState spin = resolveSpin(req, side, sidecarPath);
         return new BodyModel(obj, mesh, edges, report, List.copyOf(warnings), unit, density, spin, side);
+    }
+
+    /** A body description: regions' densities, outer shape as the mesh, spin from the description or request. */
+    private static BodyModel loadDescription(Path file, ModelRequest req) {
+        if (req.density() != null || req.mass() != null) {
+            throw new InputException(file + ": --density and --mass do not apply to a body description (densities "
+                + "come from its regions; --gm works with solve_density_of)");
+        }
+        List<String> warnings = new ArrayList<>();
+        dev.cairn.regions.RegionBody rb = dev.cairn.regions.RegionBodyLoader.load(file, req.lengthUnit(), req.gm(),
+            warnings);
+        ModelSidecar view = new ModelSidecar();
+        view.name = rb.name();
+        view.lengthUnit = rb.lengthUnit();
+        view.spinPeriodS = rb.description().spinPeriodS;
+        view.spinAxis = rb.description().spinAxis;
+        SpinState spin = resolveSpin(req, view, file);
+        TriangleMesh outer = rb.outerMesh();
+        EdgeTable edges = rb.regions().get(0).edges();
+        return new BodyModel(file, outer, edges, MeshInspector.inspect(outer, edges), List.copyOf(warnings),
+            rb.lengthUnit(), rb.bulkDensity(), spin, view, rb);
     }
 
     private static double resolveDensity(Path obj, ModelRequest req, ModelSidecar side, Path sidecarPath,
@@ -117,15 +145,12 @@ public final class ModelLoader {
         if (axis.length != 3) {
             throw new InputException(sidecarPath + ": spin_axis must have 3 components");
         }
-        if (period == null) {
-            return new SpinState(Double.POSITIVE_INFINITY, axis);
-        }
-        if (!(period > 0)) {
+        if (period != null && !(period > 0)) {
             throw new InputException((req.spinPeriod() != null ? "--spin-period" : sidecarPath.toString())
                 + ": spin period must be positive, got " + period);
         }
         try {
-            return new SpinState(period, axis);
+            return new SpinState(period == null ? Double.POSITIVE_INFINITY : period, axis);
         } catch (IllegalArgumentException e) {
             throw new InputException((req.spinAxis() != null ? "--spin-axis" : sidecarPath.toString()) + ": "
                 + e.getMessage());

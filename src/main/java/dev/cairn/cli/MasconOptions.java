@@ -1,0 +1,95 @@
+package dev.cairn.cli;
+
+import dev.cairn.gravity.FieldModel;
+import dev.cairn.io.BodyModel;
+import dev.cairn.io.InputException;
+import dev.cairn.mascon.DensityModel;
+import dev.cairn.mascon.MasconField;
+import dev.cairn.mascon.MasconGenerator;
+import dev.cairn.mascon.MasconReport;
+import dev.cairn.mascon.MasconSet;
+import java.io.PrintWriter;
+import java.util.Locale;
+import picocli.CommandLine.Option;
+
+/**
+ * Options choosing the field model of a body: the polyhedron (exact; a body description: the regions'
+ * superposition) or a mascon set of a given size and scheme. Shared by {@code field} and {@code compare}.
+ */
+public final class MasconOptions {
+    @Option(names = "--model", paramLabel = "polyhedron|mascon", description = "Field model (default: "
+        + "${DEFAULT-VALUE}).")
+    String model = "polyhedron";
+
+    @Option(names = "--mascons", paramLabel = "N", description = "Target number of mascons for --model mascon "
+        + "(default: ${DEFAULT-VALUE}).")
+    int mascons = 10000;
+
+    @Option(names = "--mascon-scheme", paramLabel = "lattice|tetra", description = "Mascon generation: cubic "
+        + "lattice or facet tetrahedra split in shells (default: ${DEFAULT-VALUE}).")
+    String scheme = "tetra";
+
+    /** The mascon set of {@code body} with these options' count and scheme. */
+    static MasconSet generate(BodyModel body, String scheme, int count, int threads) {
+        if (count < 1) {
+            throw new InputException("--mascons must be at least 1, got " + count);
+        }
+        MasconGenerator.Scheme s;
+        try {
+            s = MasconGenerator.Scheme.parse(scheme);
+        } catch (IllegalArgumentException e) {
+            throw new InputException("--mascon-scheme: " + e.getMessage());
+        }
+        DensityModel density;
+        if (body.regions() != null) {
+            density = body.regions().densityModel();
+        } else {
+            body.requireFitForGravity();
+            body.requireDensity();
+            density = DensityModel.uniform(body.mesh(), body.density());
+        }
+        try (ProgressBar bar = new ProgressBar("mascons")) {
+            return MasconGenerator.generate(s, density, count, threads, bar);
+        }
+    }
+
+    /** Builds the chosen field model; for mascons, prints the mass-property report to {@code err}. */
+    FieldModel build(BodyModel body, int threads, PrintWriter err) {
+        return build(body, model, mascons, scheme, threads, err);
+    }
+
+    static FieldModel build(BodyModel body, String model, int mascons, String scheme, int threads, PrintWriter err) {
+        switch (model.toLowerCase(Locale.ROOT)) {
+            case "polyhedron":
+                return body.fieldModel();
+            case "mascon":
+            case "mascons":
+                MasconSet set = generate(body, scheme, mascons, threads);
+                err.print(indent(set.scheme() + "\n" + MasconReport.of(set, body.massProperties()).text()));
+                err.flush();
+                return new MasconField(set);
+            default:
+                throw new InputException("--model: unknown field model '" + model + "' (use polyhedron or mascon)");
+        }
+    }
+
+    /** Warns on {@code err} when evaluations came closer to a mascon than its local spacing. */
+    static void warnTooClose(FieldModel field, int points, PrintWriter err) {
+        if (field instanceof MasconField) {
+            long close = ((MasconField) field).tooCloseCount();
+            if (close > 0) {
+                err.println("cairn: warning: " + ((MasconField) field).count() + " mascons: " + close + " of "
+                    + points + " point(s) lie closer to a mascon than its local spacing: point masses model the field poorly there (use the polyhedron)");
+                err.flush();
+            }
+        }
+    }
+
+    private static String indent(String s) {
+        StringBuilder b = new StringBuilder();
+        for (String line : s.split("\n")) {
+            b.append("cairn: ").append(line).append('\n');
+        }
+        return b.toString();
+    }
+}

@@ -1,0 +1,175 @@
+package dev.cairn.cli;
+
+import dev.cairn.io.BodyModel;
+import dev.cairn.io.InputException;
+import dev.cairn.surface.HoverPoint;
+import dev.cairn.surface.LandingZone;
+import dev.cairn.surface.Survey;
+import dev.cairn.surface.SurveyOutputs;
+import dev.cairn.surface.SurveyParameters;
+import dev.cairn.surface.SurveyResult;
+import dev.cairn.util.ParallelChunks;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.nio.file.Paths;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code cairn survey}: surface survey of the spinning body (slope, effective gravity, dynamic height, lift-off,
+ * escape speed, landing and hovering zones), written to an output directory, with a short report on the terminal.
+ */
+@Command(name = "survey", mixinStandardHelpOptions = true,
+    description = {"Survey the surface of the spinning body: slope, effective gravity,",
+        "dynamic height, lift-off, escape speed, landing zones and hovering points.",
+        "Writes facets.csv, summary.json, surface.vtk and PNG maps to --out.",
+        "SI units, model (body-fixed) frame, U > 0, g = grad U; see docs/survey.md.",
+        "Caution: results must be verified independently before operational use;",
+        "mission rules and the responsible flight-dynamics authority decide."})
+public final class SurveyCommand implements Callable<Integer> {
+    @Mixin
+    ModelOptions model = new ModelOptions();
+
+    @Mixin
+    SpinOptions spinOptions = new SpinOptions();
+
+    @Option(names = "--max-slope", paramLabel = "DEG", description = "Landing slope limit, degrees, 0-90 "
+        + "(default ${DEFAULT-VALUE}; common practice, no source).")
+    double maxSlope = SurveyParameters.DEFAULT_MAX_SLOPE_DEG;
+
+    @Option(names = "--zone-radius", paramLabel = "M", description = "Radius that must be safe all round a landing "
+        + "aim point, m (default ${DEFAULT-VALUE}).")
+    double zoneRadius = SurveyParameters.DEFAULT_ZONE_RADIUS_M;
+
+    @Option(names = "--max-roughness", paramLabel = "DEG", description = "Largest RMS spread of facet normals inside "
+        + "the zone radius, degrees (default ${DEFAULT-VALUE}).")
+    double maxRoughness = SurveyParameters.DEFAULT_MAX_ROUGHNESS_DEG;
+
+    @Option(names = "--hover-altitudes", paramLabel = "M", split = ",", description = "Altitudes above the "
+        + "surface for the hovering search, m, comma-separated (default: 0, 2, 5, 10 and 20%% of the equivalent "
+        + "radius).")
+    double[] hoverAltitudes;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Output directory (default: survey-out/ in the "
+        + "current directory).")
+    Path out = Paths.get("survey-out");
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all processors).")
+    int threads = ParallelChunks.defaultThreads();
+
+    @Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        System.setProperty("java.awt.headless", "true");
+        SurveyParameters params = parameters();
+        BodyModel body = model.load(spinOptions);
+        PrintWriter err = spec.commandLine().getErr();
+        for (String w : body.warnings()) {
+            err.println("cairn: warning: " + w);
+        }
+        body.fieldModel(); // fail early, with a one-line error, when the field cannot be built
+        SurveyResult r;
+        try (ProgressBar bar = new ProgressBar("survey")) {
+            r = Survey.run(body, params, bar);
+        }
+        for (String n : r.notes()) {
+            err.println("cairn: note: " + n);
+        }
+        SurveyOutputs.writeAll(r, out);
+        report(spec.commandLine().getOut(), r);
+        return 0;
+    }
+
+    /** Checks the options and builds the survey parameters; bad values give a one-line InputException. */
+    SurveyParameters parameters() {
+        if (!(maxSlope > 0 && maxSlope < 90)) {
+            throw new InputException("--max-slope: must be between 0 and 90 degrees, got " + maxSlope);
+        }
+        if (!(zoneRadius > 0) || !Double.isFinite(zoneRadius)) {
+            throw new InputException("--zone-radius: must be a positive number of metres, got " + zoneRadius);
+        }
+        if (!(maxRoughness > 0 && maxRoughness <= 90)) {
+            throw new InputException("--max-roughness: must be in (0, 90] degrees, got " + maxRoughness);
+        }
+        if (hoverAltitudes != null) {
+            for (double h : hoverAltitudes) {
+                if (!(h >= 0) || !Double.isFinite(h)) {
+                    throw new InputException("--hover-altitudes: altitudes must be finite and >= 0 m, got " + h);
+                }
+            }
+        }
+        if (threads < 1) {
+            throw new InputException("--threads: must be at least 1, got " + threads);
+        }
+        spinOptions.periodSeconds(); // validates --spin-period before the model is read
+        spinOptions.axis();
+        return new SurveyParameters(maxSlope, zoneRadius, maxRoughness, hoverAltitudes, threads);
+    }
+
+    private void report(PrintWriter o, SurveyResult r) {
+        var t = r.target();
+        double p = t.spin().periodSeconds();
+        double[] ax = t.spin().axis();
+        o.printf(Locale.ROOT, "Body         %s (%s), %d facets%n", t.name(), t.source(), r.facetCount());
+        o.printf(Locale.ROOT, "Field        %s, GM %.6g m^3/s^2, equivalent radius %.6g m%n", t.field().describe(),
+            t.field().gm(), t.equivalentRadius());
+        o.printf(Locale.ROOT, "Spin         %s, pole [%.4f, %.4f, %.4f]%n", Double.isInfinite(p) ? "none"
+            : String.format(Locale.ROOT, "period %.6g s (%.4g h)", p, p / 3600), ax[0], ax[1], ax[2]);
+        range(o, "Slope", r.slopeDeg(), "deg");
+        range(o, "Gravity", r.gravity(), "m/s^2");
+        range(o, "Eff. gravity", r.gravityEff(), "m/s^2");
+        range(o, "Dyn. height", r.dynamicHeight(), "m (0 = area-weighted mean level, positive = higher)");
+        range(o, "Escape speed", r.escapeSpeed(), "m/s (normal launch)");
+        double[] a = r.areas();
+        boolean[] lift = r.liftOff();
+        double[] s = r.slopeDeg();
+        double tot = 0;
+        double la = 0;
+        double below = 0;
+        for (int f = 0; f < a.length; f++) {
+            tot += a[f];
+            la += lift[f] ? a[f] : 0;
+            below += s[f] < r.parameters().maxSlopeDeg() ? a[f] : 0;
+        }
+        o.printf(Locale.ROOT, "Area         %.1f%% below %.4g deg slope, %.2f%% lift-off%n", 100 * below / tot,
+            r.parameters().maxSlopeDeg(), 100 * la / tot);
+        o.printf(Locale.ROOT, "Zones        %d (slope < %.4g deg and roughness <= %.4g deg over radius %.4g m)%n",
+            r.zones().size(), r.parameters().maxSlopeDeg(), r.parameters().maxRoughnessDeg(),
+            r.parameters().zoneRadiusM());
+        for (LandingZone z : r.zones().subList(0, Math.min(5, r.zones().size()))) {
+            o.printf(Locale.ROOT, "  #%d score %.3f  aim lat %6.1f lon %7.1f  area %.4g m^2  slope max %.1f mean %.1f"
+                + " deg  g_eff %.4g m/s^2  escape %.3g m/s%n", z.rank(), z.score(), z.bestLatDeg(), z.bestLonDeg(),
+                z.areaM2(),
+                z.maxSlopeDeg(), z.meanSlopeDeg(), z.meanGravityEff(), z.meanEscapeSpeed());
+        }
+        double lastAlt = -1;
+        for (HoverPoint h : r.hovering()) {
+            if (h.altitudeM() != lastAlt && h.rank() == 1) {
+                o.printf(Locale.ROOT, "Hover        %8.4g m altitude: least %.4g m/s^2 at lat %.1f lon %.1f%n",
+                    h.altitudeM(), h.hoverAccel(), h.latDeg(), h.lonDeg());
+                lastAlt = h.altitudeM();
+            }
+        }
+        double[] st = r.stageSeconds();
+        o.printf(Locale.ROOT, "Survey       %.2f s (field %.2f s, zones %.2f s, hovering %.2f s); outputs in %s%n",
+            r.seconds(), st[0], st[1], st[2], out.toAbsolutePath());
+        o.println("Caution: " + SurveyOutputs.CAUTION);
+        o.flush();
+    }
+
+    private static void range(PrintWriter o, String what, double[] v, String unit) {
+        double mn = Double.POSITIVE_INFINITY;
+        double mx = Double.NEGATIVE_INFINITY;
+        for (double x : v) {
+            mn = Math.min(mn, x);
+            mx = Math.max(mx, x);
+        }
+        o.printf(Locale.ROOT, "%-12s %.4g .. %.4g %s%n", what, mn, mx, unit);
+    }
+}

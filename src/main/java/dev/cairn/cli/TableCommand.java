@@ -1,0 +1,384 @@
+package dev.cairn.cli;
+
+import dev.cairn.gravity.FieldModel;
+import dev.cairn.io.BodyModel;
+import dev.cairn.io.InputException;
+import dev.cairn.io.ModelSidecar;
+import dev.cairn.io.PointsCsv;
+import dev.cairn.tables.AccuracyCheck;
+import dev.cairn.tables.BoxGrid;
+import dev.cairn.tables.Grid;
+import dev.cairn.tables.PointGrid;
+import dev.cairn.tables.SphereGrid;
+import dev.cairn.tables.Table;
+import dev.cairn.tables.TableBench;
+import dev.cairn.tables.TableBuilder;
+import dev.cairn.tables.TableField;
+import dev.cairn.tables.TableFiles;
+import dev.cairn.tables.TableJob;
+import dev.cairn.tables.TableLayout;
+import dev.cairn.util.ParallelChunks;
+import dev.cairn.util.ProgressListener;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.time.temporal.ChronoUnit;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code cairn table}: an acceleration table on a box, spherical or point grid, with an accuracy report. */
+@Command(name = "table", mixinStandardHelpOptions = true,
+    description = {"Tabulate potential and acceleration (optionally the gradient tensor and",
+        "the effective quantities of the rotating body) on a grid, for fast",
+        "interpolation in simulators. Writes FILE (.npy or .csv) and FILE.json",
+        "(metadata and accuracy report). See docs/tables.md.",
+        "Conventions: SI units, model (body-fixed) frame, potential U > 0,",
+        "acceleration = grad U.",
+        "Caution: results must be verified independently before operational use;",
+        "mission rules and the responsible flight-dynamics authority decide.",
+        "Examples:",
+        "  cairn table M.obj --grid box --box -3000,3000,-3000,3000,-2000,2000 \\",
+        "      --spacing 100 --gradient --out t.npy",
+        "  cairn table M.obj --grid sphere --radii 2000:6000:250 \\",
+        "      --lat-step 5 --lon-step 5 --out s.npy",
+        "  cairn table M.obj --grid points --points traj.csv --out p.csv"})
+public final class TableCommand implements Callable<Integer> {
+    /** Default node limit without --force. */
+    public static final int DEFAULT_MAX_NODES = 2_000_000;
+
+    @Mixin
+    ModelOptions model = new ModelOptions();
+
+    @Mixin
+    SpinOptions spinOptions = new SpinOptions();
+
+    @Option(names = "--grid", paramLabel = "box|sphere|points", description = "Grid kind (required except with --bench).")
+    String gridKind;
+
+    @Option(names = "--box", split = ",", paramLabel = "XMIN,XMAX,YMIN,YMAX,ZMIN,ZMAX",
+        description = "Box bounds, m (grid box).")
+    double[] box;
+
+    @Option(names = "--spacing", split = ",", paramLabel = "S|SX,SY,SZ",
+        description = "Node spacing, m (grid box); the upper bounds move up to a whole number of steps.")
+    double[] spacing;
+
+    @Option(names = "--nodes", split = ",", paramLabel = "N|NX,NY,NZ",
+        description = "Node counts instead of a spacing (grid box), nodes on both bounds.")
+    int[] nodes;
+
+    @Option(names = "--radii", paramLabel = "R1,R2,..|FROM:TO:STEP", description = "Shell radii, m (grid sphere).")
+    String radii;
+
+    @Option(names = "--lat-step", paramLabel = "DEG", description = "Latitude spacing, degrees, dividing 180.")
+    Double latStep;
+
+    @Option(names = "--lon-step", paramLabel = "DEG", description = "Longitude spacing, degrees, dividing 360.")
+    Double lonStep;
+
+    @Option(names = "--centre", split = ",", paramLabel = "X,Y,Z",
+        description = "Sphere centre, m (default: the centre of mass).")
+    double[] centre;
+
+    @Option(names = "--points", paramLabel = "FILE", description = "CSV of points x,y,z in m (grid points).")
+    Path points;
+
+    @Option(names = "--out", paramLabel = "FILE", description = "Output data file (.npy or .csv).")
+    Path out;
+
+    @Option(names = "--format", paramLabel = "npy|csv", description = "Output format (default: from the extension, "
+        + "else npy).")
+    String format;
+
+    @Option(names = "--gradient", description = "Also tabulate the gravity-gradient tensor (6 components).")
+    boolean gradient;
+
+    @Option(names = "--effective", description = "Also tabulate effective potential and acceleration of the "
+        + "rotating body (gravity + centrifugal).")
+    boolean effective;
+
+    @Option(names = "--exclude-interior", description = "Leave nodes inside the body as NaN (they stay flagged).")
+    boolean excludeInterior;
+
+    @Option(names = "--max-nodes", paramLabel = "N", description = "Refuse grids with more nodes unless --force "
+        + "(default ${DEFAULT-VALUE}).")
+    int maxNodes = DEFAULT_MAX_NODES;
+
+    @Option(names = "--force", description = "Allow a grid above --max-nodes.")
+    boolean force;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all processors).")
+    int threads = ParallelChunks.defaultThreads();
+
+    @Option(names = "--resume", description = "Continue an interrupted run from its last completed chunk.")
+    boolean resume;
+
+    @Option(names = "--shard", paramLabel = "I/N", description = "Compute only shard I of N (1-based); merge the "
+        + "shards with 'cairn table-merge'.")
+    String shard;
+
+    @Option(names = "--chunk-nodes", paramLabel = "N", description = "Nodes per checkpoint chunk (default "
+        + "${DEFAULT-VALUE}).")
+    int chunkNodes = TableJob.DEFAULT_CHUNK_NODES;
+
+    @Option(names = "--check-samples", paramLabel = "N", description = "Random points of the accuracy report "
+        + "(default ${DEFAULT-VALUE}; 0 skips it).")
+    int checkSamples = 2000;
+
+    @Option(names = "--seed", paramLabel = "S", description = "Seed of the accuracy report (default ${DEFAULT-VALUE}).")
+    long seed = 1;
+
+    @Option(names = "--bench", description = "Print throughput, interpolation cost and an error study instead of "
+        + "writing a table (uses the grid options when given).")
+    boolean bench;
+
+    @Option(names = "--bench-spacings", split = ",", paramLabel = "F,..", description = "Box spacings of the error "
+        + "study as fractions of the Brillouin radius (default ${DEFAULT-VALUE}).")
+    double[] benchSpacings = {0.4, 0.2, 0.1};
+
+    @Option(names = "--stop-after-chunks", hidden = true, paramLabel = "N", description = "Stop after N checkpoint "
+        + "chunks as if interrupted (to try --resume; exit code 3).")
+    int stopAfterChunks;
+
+    /** Exit code of a run stopped by --stop-after-chunks (resumable). */
+    public static final int EXIT_INCOMPLETE = 3;
+
+    @Spec
+    picocli.CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        PrintWriter err = spec.commandLine().getErr();
+        PrintWriter outw = spec.commandLine().getOut();
+        if (threads < 1) {
+            throw new InputException("--threads: must be at least 1, got " + threads);
+        }
+        if (gridKind == null && !bench) {
+            throw new InputException("--grid: missing (box, sphere or points)");
+        }
+        if (gridKind != null) {
+            preCheckGrid();
+        }
+        BodyModel body = model.load(spinOptions);
+        for (String w : body.warnings()) {
+            err.println("cairn: warning: " + w);
+        }
+        FieldModel field = body.fieldModel();
+        if (bench) {
+            return bench(body, field, outw);
+        }
+        Grid grid = grid(body);
+        if (grid.nodeCount() > maxNodes && !force) {
+            throw new InputException("--grid " + gridKind + ": " + grid.nodeCount() + " nodes is more than the limit of "
+                + maxNodes + "; use --force (or raise --max-nodes) if you mean it");
+        }
+        if (out == null) {
+            throw new InputException("--out: missing output file");
+        }
+        String fmt = format != null ? format.toLowerCase(Locale.ROOT) : TableFiles.formatOf(out);
+        if (!fmt.equals(TableFiles.NPY) && !fmt.equals(TableFiles.CSV)) {
+            throw new InputException("--format: unknown format '" + format + "' (use npy or csv)");
+        }
+        int shardIndex = 0;
+        int shardCount = 0;
+        if (shard != null) {
+            String[] p = shard.split("/", -1);
+            try {
+                shardIndex = Integer.parseInt(p[0].trim());
+                shardCount = p.length == 2 ? Integer.parseInt(p[1].trim()) : -1;
+            } catch (NumberFormatException e) {
+                shardCount = -1;
+            }
+            if (p.length != 2 || shardCount < 1 || shardIndex < 1 || shardIndex > shardCount) {
+                throw new InputException("--shard: expected I/N with 1 <= I <= N, got '" + shard + "'");
+            }
+        }
+        if (effective && body.spin().omega() == 0) {
+            err.println("cairn: warning: --effective on a body without spin: effective quantities equal the gravity "
+                + "ones (give --spin-period or spin_period_s in the model sidecar)");
+        }
+        TableLayout layout = layout(body, grid);
+        TableBuilder.Request req = new TableBuilder.Request(field, layout, out, fmt, chunkNodes, resume, shardIndex,
+            shardCount, threads, modelInfo(body), VersionProvider.version());
+        long t0 = System.nanoTime();
+        TableBuilder.Outcome outcome;
+        java.util.concurrent.atomic.AtomicInteger chunks = new java.util.concurrent.atomic.AtomicInteger();
+        try (ProgressBar bar = new ProgressBar(shard != null ? "table " + shard : "table")) {
+            outcome = TableBuilder.build(req, bar,
+                () -> stopAfterChunks > 0 && chunks.incrementAndGet() >= stopAfterChunks, now());
+        }
+        double secs = (System.nanoTime() - t0) / 1e9;
+        if (!outcome.complete()) {
+            err.printf(Locale.ROOT, "cairn: stopped after %d chunk(s) as asked; run again with --resume to finish%n",
+                outcome.job().chunksReused() + outcome.job().chunksDone());
+            err.flush();
+            return EXIT_INCOMPLETE;
+        }
+        int computedNodes = shard != null ? ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("end_node"))
+            .intValue() - ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("first_node")).intValue()
+            : grid.nodeCount();
+        err.printf(Locale.ROOT, "cairn: wrote %s (%s, %d nodes x %d columns) and %s%s%n", out,
+            shard != null ? "npy shard" : fmt, computedNodes, layout.columnCount(), TableFiles.sidecarPath(out).getFileName(),
+            outcome.job().chunksReused() > 0 ? " (resumed: " + outcome.job().chunksReused() + " chunk(s) reused)" : "");
+        if (outcome.job().chunksReused() == 0) {
+            err.printf(Locale.ROOT, "cairn: %.2f s, %.0f nodes/s with %d thread(s)%n", secs, computedNodes / secs,
+                threads);
+        }
+        if (shard == null && checkSamples > 0 && !(grid instanceof PointGrid)) {
+            Table table = TableFiles.read(out);
+            TableField tf;
+            try {
+                tf = new TableField(table);
+            } catch (IllegalArgumentException e) {
+                err.println("cairn: note: no accuracy report: " + e.getMessage());
+                tf = null;
+            }
+            if (tf != null) {
+                AccuracyCheck.Report rep;
+                try (ProgressBar bar = new ProgressBar("accuracy check")) {
+                    rep = AccuracyCheck.run(tf, field, checkSamples, seed, threads, bar);
+                }
+                TableBuilder.addAccuracy(out, outcome.metadata(), rep);
+                printAccuracy(outw, rep);
+            }
+        }
+        outw.println(TableBuilder.CAUTION);
+        outw.flush();
+        err.flush();
+        return 0;
+    }
+
+    static void printAccuracy(PrintWriter w, AccuracyCheck.Report rep) {
+        w.printf(Locale.ROOT, "Accuracy (relative acceleration error at %d random points, seed %d):%n", rep.samples(),
+            rep.seed());
+        printStats(w, "outside body", rep.outside());
+        printStats(w, "inside body ", rep.inside());
+        if (rep.blank() > 0) {
+            w.printf(Locale.ROOT, "  %d point(s) in cells with blank (NaN) nodes%n", rep.blank());
+        }
+    }
+
+    private static void printStats(PrintWriter w, String label, AccuracyCheck.Stats s) {
+        if (s.count() == 0) {
+            w.printf(Locale.ROOT, "  %s: no points%n", label);
+            return;
+        }
+        w.printf(Locale.ROOT, "  %s: %6d points  max %.3e  rms %.3e  p50 %.3e  p90 %.3e  p99 %.3e  (max abs %.3e m/s^2)%n",
+            label, s.count(), s.max(), s.rms(), s.p50(), s.p90(), s.p99(), s.maxAbs());
+    }
+
+    private static String now() {
+        return Instant.now().truncatedTo(ChronoUnit.SECONDS).toString();
+    }
+
+    /** Checks what can be checked before the model is loaded (so bad specs fail fast). */
+    private void preCheckGrid() {
+        switch (gridKind) {
+            case "box":
+                refuse(radii != null || latStep != null || lonStep != null || centre != null || points != null,
+                    "--grid box takes --box with --spacing or --nodes (not --radii, --lat-step, --lon-step, --centre, "
+                        + "--points)");
+                boxGrid();
+                break;
+            case "sphere":
+                refuse(box != null || spacing != null || nodes != null || points != null,
+                    "--grid sphere takes --radii, --lat-step, --lon-step and optionally --centre");
+                if (radii == null || latStep == null || lonStep == null) {
+                    throw new InputException("--grid sphere: give --radii, --lat-step and --lon-step");
+                }
+                new SphereGrid(new double[3], SphereGrid.parseRadii(radii), latStep, lonStep);
+                if (centre != null && centre.length != 3) {
+                    throw new InputException("--centre: expected X,Y,Z, got " + centre.length + " number(s)");
+                }
+                break;
+            case "points":
+                refuse(box != null || spacing != null || nodes != null || radii != null || latStep != null
+                    || lonStep != null || centre != null, "--grid points takes only --points FILE");
+                if (points == null) {
+                    throw new InputException("--grid points: give --points FILE");
+                }
+                break;
+            default:
+                throw new InputException("--grid: unknown grid '" + gridKind + "' (use box, sphere or points)");
+        }
+    }
+
+    private static void refuse(boolean bad, String msg) {
+        if (bad) {
+            throw new InputException(msg);
+        }
+    }
+
+    private BoxGrid boxGrid() {
+        if (box == null) {
+            throw new InputException("--grid box: give --box XMIN,XMAX,YMIN,YMAX,ZMIN,ZMAX");
+        }
+        if ((spacing == null) == (nodes == null)) {
+            throw new InputException("--grid box: give exactly one of --spacing and --nodes");
+        }
+        if (spacing != null) {
+            if (spacing.length != 1 && spacing.length != 3) {
+                throw new InputException("--spacing: expected 1 or 3 numbers, got " + spacing.length);
+            }
+            double[] s = spacing.length == 1 ? new double[] {spacing[0], spacing[0], spacing[0]} : spacing;
+            return BoxGrid.ofSpacing(box, s);
+        }
+        if (nodes.length != 1 && nodes.length != 3) {
+            throw new InputException("--nodes: expected 1 or 3 counts, got " + nodes.length);
+        }
+        int[] n = nodes.length == 1 ? new int[] {nodes[0], nodes[0], nodes[0]} : nodes;
+        return BoxGrid.ofCounts(box, n);
+    }
+
+    private Grid grid(BodyModel body) {
+        switch (gridKind) {
+            case "box":
+                return boxGrid();
+            case "sphere":
+                return new SphereGrid(centre != null ? centre : body.massProperties().centerOfMass(),
+                    SphereGrid.parseRadii(radii), latStep, lonStep);
+            default:
+                return new PointGrid(PointsCsv.read(points), points.getFileName().toString(),
+                    TableFiles.sha256(points));
+        }
+    }
+
+    private TableLayout layout(BodyModel body, Grid grid) {
+        return new TableLayout(grid, gradient, effective, excludeInterior, body.spin().omega(), body.spin().axis(),
+            body.massProperties().centerOfMass());
+    }
+
+    /** Model identity for the sidecar. */
+    static Map<String, Object> modelInfo(BodyModel body) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("file", body.source().toString());
+        m.put("sha256", TableFiles.sha256(body.source()));
+        Path side = ModelSidecar.pathFor(body.source());
+        m.put("sidecar_sha256", body.sidecar() != null && Files.isRegularFile(side) ? TableFiles.sha256(side) : null);
+        m.put("length_unit_of_file", body.lengthUnit());
+        m.put("density_kg_m3", body.density());
+        m.put("gm_m3_s2", body.gm());
+        m.put("field", body.fieldModel().describe());
+        return m;
+    }
+
+    private int bench(BodyModel body, FieldModel field, PrintWriter w) {
+        double rb = body.massProperties().brillouinRadius();
+        double[] com = body.massProperties().centerOfMass();
+        Grid grid = gridKind != null ? grid(body) : null;
+        w.printf(Locale.ROOT, "Model: %s (%s), Brillouin radius %.1f m%n", body.source(), field.describe(), rb);
+        TableBench.Report r = TableBench.run(field, body.mesh(), layout(body, grid != null ? grid
+            : TableBench.defaultGrid(com, rb)), com, rb, benchSpacings, gradient, threads, checkSamples, seed);
+        w.print(r.text());
+        w.println(TableBuilder.CAUTION);
+        w.flush();
+        return 0;
+    }
+}

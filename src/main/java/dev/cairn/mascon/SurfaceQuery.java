@@ -1,0 +1,386 @@
+package dev.cairn.mascon;
+
+import dev.cairn.mesh.EdgeTable;
+import dev.cairn.mesh.TriangleMesh;
+
+/**
+ * Geometric queries against a closed, outward-oriented triangle mesh, one pass over the facets per query, no
+ * allocation: the winding number (inside test), the distance to the surface and the farthest crossing of a ray.
+ *
+ * <p>Winding number {@code w = Σ_f ω_f / 4π} with the facet solid angle of Van Oosterom, A. &amp; Strackee, J. (1983)
+ * "The solid angle of a plane triangle", IEEE Trans. Biomed. Eng. BME-30(2):125–126; {@code w ≈ 1} inside, 0
+ * outside, ½ on the surface (the sum behind the Laplacian of Werner &amp; Scheeres 1997). Point-to-triangle distance by
+ * the closest-point construction of Ericson, C. (2005) Real-Time Collision Detection, §5.1.5. Ray crossing by
+ * Möller, T. &amp; Trumbore, B. (1997) "Fast, minimum storage ray-triangle intersection", J. Graphics Tools 2(1):21–28.
+ *
+ * <p>Near the surface, {@link #near} gives a {@link Local} view for points within a radius of a centre: the distance
+ * from the few facets that can be nearest, and inside/outside from the sign of {@code (p − q)·n} against the nearest
+ * facet's angle-weighted pseudo-normal (Bærentzen, J.A. &amp; Aanæs, H. (2005) "Signed distance computation using the
+ * angle weighted pseudonormal", IEEE Trans. Vis. Comput. Graph. 11(3):243–253), exact for a closed 2-manifold.
+ *
+ * <p>Units: metres, model frame. Immutable and thread-safe (no scratch state).
+ */
+public final class SurfaceQuery {
+    private final double[] xyz;
+    private final int[] tri;
+    private final int facets;
+    /** Unit facet normals, 3 per facet. */
+    private final double[] fn;
+    /** Pseudo-normal of each facet's three edges (half-edges 3f+k), 9 per facet. */
+    private final double[] en;
+    /** Angle-weighted vertex pseudo-normals, 3 per vertex. */
+    private final double[] vn;
+
+    /** @param mesh closed, outward-oriented 2-manifold mesh, metres (shared, not copied) */
+    public SurfaceQuery(TriangleMesh mesh) {
+        this.xyz = mesh.xyz();
+        this.tri = mesh.tri();
+        this.facets = mesh.facetCount();
+        this.fn = mesh.facetNormals();
+        this.vn = new double[xyz.length];
+        this.en = new double[9 * facets];
+        EdgeTable edges = EdgeTable.of(mesh);
+        for (int f = 0; f < facets; f++) {
+            for (int k = 0; k < 3; k++) {
+                int a = tri[3 * f + k];
+                int b = tri[3 * f + (k + 1) % 3];
+                int c = tri[3 * f + (k + 2) % 3];
+                double ux = xyz[3 * b] - xyz[3 * a];
+                double uy = xyz[3 * b + 1] - xyz[3 * a + 1];
+                double uz = xyz[3 * b + 2] - xyz[3 * a + 2];
+                double wx = xyz[3 * c] - xyz[3 * a];
+                double wy = xyz[3 * c + 1] - xyz[3 * a + 1];
+                double wz = xyz[3 * c + 2] - xyz[3 * a + 2];
+                double cos = (ux * wx + uy * wy + uz * wz)
+                    / Math.sqrt((ux * ux + uy * uy + uz * uz) * (wx * wx + wy * wy + wz * wz));
+                double angle = Math.acos(Math.max(-1, Math.min(1, cos)));
+                for (int d = 0; d < 3; d++) {
+                    vn[3 * a + d] += angle * fn[3 * f + d];
+                }
+                int e = edges.edgeOfHalfEdge(3 * f + k);
+                int other = edges.otherFacet(e, f);
+                for (int d = 0; d < 3; d++) {
+                    en[9 * f + 3 * k + d] = fn[3 * f + d] + (other >= 0 ? fn[3 * other + d] : 0);
+                }
+            }
+        }
+    }
+
+    /** Inside/outside and distance for points near a centre, from a few candidate facets. */
+    public final class Local {
+        private final int[] cand;
+        private final double[] w = new double[4];
+        /** Far mode (surface farther than the radius from the centre): centre, its distance and inside flag. */
+        private final double cx;
+        private final double cy;
+        private final double cz;
+        private final double dc;
+        private final double status;
+        private final boolean exact;
+
+        private Local(int[] cand, double cx, double cy, double cz, double dc, double status, boolean exact) {
+            this.exact = exact;
+            this.cand = cand;
+            this.cx = cx;
+            this.cy = cy;
+            this.cz = cz;
+            this.dc = dc;
+            this.status = status;
+        }
+
+        /**
+         * A narrower view for points within {@code radius} of {@code (x, y, z)}, a neighbourhood inside this view's
+         * own; built from this view's candidate facets only.
+         */
+        public Local near(double x, double y, double z, double radius) {
+            if (cand == null) {
+                return this;
+            }
+            double[] o = new double[2];
+            windingAndDistance(x, y, z, o);
+            double d = o[1];
+            if (d > radius && !exact) {
+                return new Local(null, x, y, z, d, o[0] > 0.5 ? 1.0 : 0.0, false);
+            }
+            double lim = (d + 2 * radius) * (d + 2 * radius) * (1 + 1e-12);
+            int[] buf = new int[cand.length];
+            int n = 0;
+            for (int f : cand) {
+                if (distanceSquared(f, x, y, z, null) <= lim) {
+                    buf[n++] = f;
+                }
+            }
+            return new Local(java.util.Arrays.copyOf(buf, n), x, y, z, d, Double.NaN, exact);
+        }
+
+        /**
+         * For a point within the radius given to {@link #near}: {@code out[0]} = 1 inside, 0 outside (½ exactly on
+         * the surface), {@code out[1]} = distance to the surface, m (modified). Not thread-safe (own scratch).
+         */
+        public void windingAndDistance(double x, double y, double z, double[] out) {
+            if (cand == null) {
+                // The surface does not reach into the neighbourhood: same side as the centre; the distance given is
+                // the lower bound d_c − |p − c| (a conservative value for the callers' "farther than" tests).
+                double dx = x - cx;
+                double dy = y - cy;
+                double dz = z - cz;
+                out[0] = status;
+                out[1] = Math.max(0, dc - Math.sqrt(dx * dx + dy * dy + dz * dz));
+                return;
+            }
+            double best = Double.POSITIVE_INFINITY;
+            double sx = 0;
+            double sy = 0;
+            double sz = 0;
+            double nx = 0;
+            double ny = 0;
+            double nz = 0;
+            for (int f : cand) {
+                double d2 = distanceSquared(f, x, y, z, w);
+                if (d2 < best) {
+                    best = d2;
+                    sx = w[0];
+                    sy = w[1];
+                    sz = w[2];
+                    int code = (int) w[3];
+                    double[] src = code == 0 ? fn : code <= 3 ? vn : en;
+                    int o = code == 0 ? 3 * f : code <= 3 ? 3 * tri[3 * f + code - 1] : 9 * f + 3 * (code - 4);
+                    nx = src[o];
+                    ny = src[o + 1];
+                    nz = src[o + 2];
+                }
+            }
+            double side = sx * nx + sy * ny + sz * nz;
+            out[0] = side < 0 ? 1.0 : side > 0 ? 0.0 : 0.5;
+            out[1] = Math.sqrt(best);
+        }
+    }
+
+    /**
+     * A local view valid for points within {@code radius} of {@code (x, y, z)}: keeps the facets that can be nearest
+     * to such a point (distance from the centre at most d + 2·radius, d the centre's distance to the surface); when
+     * the surface lies farther than {@code radius} (d &gt; radius), every such point is on the centre's side and the
+     * view reports that side and a lower bound of the distance.
+     */
+    public Local near(double x, double y, double z, double radius) {
+        return near(x, y, z, radius, false);
+    }
+
+    /** As {@link #near(double, double, double, double)}; {@code exactDistance} keeps exact distances far away too. */
+    public Local near(double x, double y, double z, double radius, boolean exactDistance) {
+        double d = distance(x, y, z);
+        if (d > radius && !exactDistance) {
+            return new Local(null, x, y, z, d, winding(x, y, z) > 0.5 ? 1.0 : 0.0, false);
+        }
+        double lim = (d + 2 * radius) * (d + 2 * radius) * (1 + 1e-12);
+        int[] buf = new int[16];
+        int n = 0;
+        for (int f = 0; f < facets; f++) {
+            if (distanceSquared(f, x, y, z, null) <= lim) {
+                if (n == buf.length) {
+                    buf = java.util.Arrays.copyOf(buf, 2 * n);
+                }
+                buf[n++] = f;
+            }
+        }
+        return new Local(java.util.Arrays.copyOf(buf, n), x, y, z, d, Double.NaN, exactDistance);
+    }
+
+    /** Winding number of the surface about {@code (x, y, z)}: ≈1 inside, ≈0 outside, ½ on the surface. */
+    public double winding(double x, double y, double z) {
+        double sum = 0;
+        for (int f = 0; f < facets; f++) {
+            sum += solidAngle(f, x, y, z);
+        }
+        return sum / (4 * Math.PI);
+    }
+
+    /** True when the winding number about the point exceeds ½. */
+    public boolean inside(double x, double y, double z) {
+        return winding(x, y, z) > 0.5;
+    }
+
+    /**
+     * Winding number and unsigned distance to the surface in one pass.
+     *
+     * @param out receives {@code out[0]} = winding number, {@code out[1]} = distance, m (modified)
+     */
+    public void windingAndDistance(double x, double y, double z, double[] out) {
+        double sum = 0;
+        double best = Double.POSITIVE_INFINITY;
+        for (int f = 0; f < facets; f++) {
+            sum += solidAngle(f, x, y, z);
+            double d2 = distanceSquared(f, x, y, z, null);
+            if (d2 < best) {
+                best = d2;
+            }
+        }
+        out[0] = sum / (4 * Math.PI);
+        out[1] = Math.sqrt(best);
+    }
+
+    /** Unsigned distance from the point to the surface, m. */
+    public double distance(double x, double y, double z) {
+        double best = Double.POSITIVE_INFINITY;
+        for (int f = 0; f < facets; f++) {
+            best = Math.min(best, distanceSquared(f, x, y, z, null));
+        }
+        return Math.sqrt(best);
+    }
+
+    /**
+     * Largest ray parameter {@code t > 0} at which {@code o + t·d} crosses the surface, or NaN when the ray misses.
+     * Beyond it the ray runs outside the body.
+     */
+    public double farthestHit(double ox, double oy, double oz, double dx, double dy, double dz) {
+        double best = Double.NaN;
+        for (int f = 0; f < facets; f++) {
+            int a = 3 * tri[3 * f];
+            int b = 3 * tri[3 * f + 1];
+            int c = 3 * tri[3 * f + 2];
+            double e1x = xyz[b] - xyz[a];
+            double e1y = xyz[b + 1] - xyz[a + 1];
+            double e1z = xyz[b + 2] - xyz[a + 2];
+            double e2x = xyz[c] - xyz[a];
+            double e2y = xyz[c + 1] - xyz[a + 1];
+            double e2z = xyz[c + 2] - xyz[a + 2];
+            double px = dy * e2z - dz * e2y;
+            double py = dz * e2x - dx * e2z;
+            double pz = dx * e2y - dy * e2x;
+            double det = e1x * px + e1y * py + e1z * pz;
+            if (det == 0) {
+                continue; // exact zero: ray parallel to the facet's plane, no single crossing
+            }
+            double inv = 1 / det;
+            double tx = ox - xyz[a];
+            double ty = oy - xyz[a + 1];
+            double tz = oz - xyz[a + 2];
+            double u = (tx * px + ty * py + tz * pz) * inv;
+            if (u < 0 || u > 1) {
+                continue;
+            }
+            double qx = ty * e1z - tz * e1y;
+            double qy = tz * e1x - tx * e1z;
+            double qz = tx * e1y - ty * e1x;
+            double v = (dx * qx + dy * qy + dz * qz) * inv;
+            if (v < 0 || u + v > 1) {
+                continue;
+            }
+            double t = (e2x * qx + e2y * qy + e2z * qz) * inv;
+            if (t > 0 && !(t <= best)) {
+                best = t;
+            }
+        }
+        return best;
+    }
+
+    private double solidAngle(int f, double x, double y, double z) {
+        int a = 3 * tri[3 * f];
+        int b = 3 * tri[3 * f + 1];
+        int c = 3 * tri[3 * f + 2];
+        double r1x = xyz[a] - x;
+        double r1y = xyz[a + 1] - y;
+        double r1z = xyz[a + 2] - z;
+        double r2x = xyz[b] - x;
+        double r2y = xyz[b + 1] - y;
+        double r2z = xyz[b + 2] - z;
+        double r3x = xyz[c] - x;
+        double r3y = xyz[c + 1] - y;
+        double r3z = xyz[c + 2] - z;
+        double n1 = Math.sqrt(r1x * r1x + r1y * r1y + r1z * r1z);
+        double n2 = Math.sqrt(r2x * r2x + r2y * r2y + r2z * r2z);
+        double n3 = Math.sqrt(r3x * r3x + r3y * r3y + r3z * r3z);
+        double num = r1x * (r2y * r3z - r2z * r3y) + r1y * (r2z * r3x - r2x * r3z) + r1z * (r2x * r3y - r2y * r3x);
+        double den = n1 * n2 * n3 + n1 * (r2x * r3x + r2y * r3y + r2z * r3z)
+            + n2 * (r3x * r1x + r3y * r1y + r3z * r1z) + n3 * (r1x * r2x + r1y * r2y + r1z * r2z);
+        return 2 * Math.atan2(num, den);
+    }
+
+    /** Squared distance from the point to facet {@code f} (Ericson 2005, closest point on triangle). */
+    private double distanceSquared(int f, double px, double py, double pz, double[] fw) {
+        int ia = 3 * tri[3 * f];
+        int ib = 3 * tri[3 * f + 1];
+        int ic = 3 * tri[3 * f + 2];
+        double ax = xyz[ia];
+        double ay = xyz[ia + 1];
+        double az = xyz[ia + 2];
+        double abx = xyz[ib] - ax;
+        double aby = xyz[ib + 1] - ay;
+        double abz = xyz[ib + 2] - az;
+        double acx = xyz[ic] - ax;
+        double acy = xyz[ic + 1] - ay;
+        double acz = xyz[ic + 2] - az;
+        double apx = px - ax;
+        double apy = py - ay;
+        double apz = pz - az;
+        double d1 = abx * apx + aby * apy + abz * apz;
+        double d2 = acx * apx + acy * apy + acz * apz;
+        double qx;
+        double qy;
+        double qz;
+        if (d1 <= 0 && d2 <= 0) {
+            return feature(fw, apx, apy, apz, 1);
+        }
+        double bpx = px - xyz[ib];
+        double bpy = py - xyz[ib + 1];
+        double bpz = pz - xyz[ib + 2];
+        double d3 = abx * bpx + aby * bpy + abz * bpz;
+        double d4 = acx * bpx + acy * bpy + acz * bpz;
+        if (d3 >= 0 && d4 <= d3) {
+            return feature(fw, bpx, bpy, bpz, 2);
+        }
+        double vc = d1 * d4 - d3 * d2;
+        if (vc <= 0 && d1 >= 0 && d3 <= 0) {
+            double v = d1 / (d1 - d3);
+            qx = apx - v * abx;
+            qy = apy - v * aby;
+            qz = apz - v * abz;
+            return feature(fw, qx, qy, qz, 4); // edge AB
+        }
+        double cpx = px - xyz[ic];
+        double cpy = py - xyz[ic + 1];
+        double cpz = pz - xyz[ic + 2];
+        double d5 = abx * cpx + aby * cpy + abz * cpz;
+        double d6 = acx * cpx + acy * cpy + acz * cpz;
+        if (d6 >= 0 && d5 <= d6) {
+            return feature(fw, cpx, cpy, cpz, 3);
+        }
+        double vb = d5 * d2 - d1 * d6;
+        if (vb <= 0 && d2 >= 0 && d6 <= 0) {
+            double w = d2 / (d2 - d6);
+            qx = apx - w * acx;
+            qy = apy - w * acy;
+            qz = apz - w * acz;
+            return feature(fw, qx, qy, qz, 6); // edge CA
+        }
+        double va = d3 * d6 - d5 * d4;
+        if (va <= 0 && (d4 - d3) >= 0 && (d5 - d6) >= 0) {
+            double w = (d4 - d3) / ((d4 - d3) + (d5 - d6));
+            double bcx = xyz[ic] - xyz[ib];
+            double bcy = xyz[ic + 1] - xyz[ib + 1];
+            double bcz = xyz[ic + 2] - xyz[ib + 2];
+            qx = bpx - w * bcx;
+            qy = bpy - w * bcy;
+            qz = bpz - w * bcz;
+            return feature(fw, qx, qy, qz, 5); // edge BC
+        }
+        double denom = 1 / (va + vb + vc);
+        double v = vb * denom;
+        double w = vc * denom;
+        qx = apx - abx * v - acx * w;
+        qy = apy - aby * v - acy * w;
+        qz = apz - abz * v - acz * w;
+        return feature(fw, qx, qy, qz, 0); // face interior
+    }
+
+    /** Stores p − q and the feature code in {@code w} (when non-null); returns |p − q|². */
+    private static double feature(double[] w, double x, double y, double z, int code) {
+        if (w != null) {
+            w[0] = x;
+            w[1] = y;
+            w[2] = z;
+            w[3] = code;
+        }
+        return x * x + y * y + z * z;
+    }
+}

@@ -1,0 +1,59 @@
+package dev.cairn.regions;
+
+import dev.cairn.gravity.FieldEvaluator;
+import dev.cairn.gravity.FieldModel;
+import dev.cairn.gravity.FieldSample;
+import java.util.List;
+
+/**
+ * The field of a body of several constant-density regions as a sum of constant-density polyhedra: the outer shape at
+ * its density and each inner region at its density minus that of the region containing it. Gravity is linear in the
+ * density, so the sum is exact (superposition; e.g. Werner &amp; Scheeres 1997, Celest. Mech. Dyn. Astron.
+ * 65:313–344, for each term). U, g, the gradient tensor and the Laplacian add; the location slot is the first
+ * part's (the outer shape's). Conventions of {@link FieldSample}: SI, model frame, U &gt; 0, g = ∇U.
+ */
+public final class SuperpositionField implements FieldModel {
+    private final FieldModel[] parts;
+    private final String description;
+
+    /** @param parts the terms; the first one decides the location slot */
+    public SuperpositionField(List<? extends FieldModel> parts, String description) {
+        if (parts.isEmpty()) {
+            throw new IllegalArgumentException("no parts");
+        }
+        this.parts = parts.toArray(new FieldModel[0]);
+        this.description = description;
+    }
+
+    @Override
+    public double gm() {
+        double s = 0;
+        for (FieldModel p : parts) {
+            s += p.gm();
+        }
+        return s;
+    }
+
+    @Override
+    public String describe() {
+        return description;
+    }
+
+    @Override
+    public FieldEvaluator newEvaluator() {
+        FieldEvaluator[] evs = new FieldEvaluator[parts.length];
+        for (int i = 0; i < parts.length; i++) {
+            evs[i] = parts[i].newEvaluator();
+        }
+        double[] tmp = new double[FieldSample.SIZE];
+        return (x, y, z, gradient, out, o) -> {
+            evs[0].evaluate(x, y, z, gradient, out, o);
+            for (int i = 1; i < evs.length; i++) {
+                evs[i].evaluate(x, y, z, gradient, tmp, 0);
+                for (int k = FieldSample.U; k <= FieldSample.GZZ; k++) {
+                    out[o + k] += tmp[k];
+                }
+            }
+        };
+    }
+}

@@ -1,0 +1,333 @@
+package dev.cairn.viewer;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.cairn.io.InputException;
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.HexFormat;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * A survey directory as the survey command writes it: {@code facets.csv} (one row per facet in OBJ order, columns
+ * looked up by name) and {@code summary.json} (keys {@code model_sha256}, {@code facets}, {@code zones}, ...).
+ * Values are SI as written by the survey (potential U &gt; 0, acceleration = grad U, model frame).
+ *
+ * <p>{@link #read(Path, Path, int)} refuses a survey that belongs to another model: the facet count of either file
+ * or the SHA-256 of the OBJ bytes differs.
+ */
+public final class SurveyData {
+    /** Columns the viewer needs; others are kept too and may be looked up by name. */
+    public static final List<String> REQUIRED = List.of("facet", "cx_m", "cy_m", "cz_m", "lat_deg", "lon_deg",
+        "slope_deg", "g_eff_m_s2", "potential_eff_m2_s2", "dynamic_height_m", "lift_off", "escape_speed_m_s", "zone");
+
+    private static final ObjectMapper JSON = new ObjectMapper();
+
+    private final Path dir;
+    private final int facets;
+    private final Map<String, double[]> columns;
+    private final String modelSha256;
+    private final List<Zone> zones;
+
+    /**
+     * A ranked landing zone: its rank (1 = best), the facets that belong to it, and the mean of their facet centroids
+     * (metres, model frame) from the {@code cx_m, cy_m, cz_m} columns.
+     */
+    public record Zone(int rank, int[] facets, double[] centroid) {
+    }
+
+    private SurveyData(Path dir, int facets, Map<String, double[]> columns, String modelSha256, List<Zone> zones) {
+        this.dir = dir;
+        this.facets = facets;
+        this.columns = columns;
+        this.modelSha256 = modelSha256;
+        this.zones = zones;
+    }
+
+    /**
+     * Reads and checks a survey directory against a model.
+     *
+     * @param dir         the survey directory
+     * @param modelFile   the OBJ file the viewer shows (its bytes are hashed)
+     * @param modelFacets facet count of the loaded model
+     * @throws InputException (one line) on a missing or malformed file or a survey of another model
+     */
+    public static SurveyData read(Path dir, Path modelFile, int modelFacets) {
+        Path summaryFile = dir.resolve("summary.json");
+        Path csv = dir.resolve("facets.csv");
+        if (!Files.isDirectory(dir)) {
+            throw new InputException(dir + ": no such survey directory");
+        }
+        JsonNode summary = readSummary(summaryFile);
+        String sha = text(summary, "model_sha256", summaryFile);
+        JsonNode nf = summary.get("facets");
+        if (nf == null || !nf.canConvertToInt()) {
+            throw new InputException(summaryFile + ": missing or non-integer key 'facets'");
+        }
+        if (nf.asInt() != modelFacets) {
+            throw new InputException(summaryFile + ": survey has " + nf.asInt() + " facets but model " + modelFile
+                + " has " + modelFacets + ": this survey belongs to another model");
+        }
+        String actual = sha256(modelFile);
+        if (!actual.equalsIgnoreCase(sha)) {
+            throw new InputException(summaryFile + ": model_sha256 " + abbreviate(sha) + " does not match "
+                + modelFile + " (" + abbreviate(actual) + "): this survey belongs to another model");
+        }
+        Map<String, double[]> cols = readCsv(csv, modelFacets);
+        List<Zone> zones = zonesOf(cols.get("zone"), cols, modelFacets);
+        return new SurveyData(dir, modelFacets, cols, actual, zones);
+    }
+
+    /** A survey from columns in memory (no files, no checks), for colouring tests and callers that built it. */
+    static SurveyData ofColumns(Map<String, double[]> columns, int facets) {
+        double[] zone = columns.getOrDefault("zone", new double[facets]);
+        List<Zone> zones = columns.containsKey("cx_m") ? zonesOf(zone, columns, facets) : List.of();
+        return new SurveyData(null, facets, Map.copyOf(columns), "", zones);
+    }
+
+    private static String abbreviate(String sha) {
+        return sha.length() > 12 ? sha.substring(0, 12) + "…" : sha;
+    }
+
+    private static JsonNode readSummary(Path file) {
+        if (!Files.isRegularFile(file)) {
+            throw new InputException(file + ": no such file (not a survey directory?)");
+        }
+        try {
+            JsonNode n = JSON.readTree(Files.readAllBytes(file));
+            if (n == null || !n.isObject()) {
+                throw new InputException(file + ": expected a JSON object");
+            }
+            return n;
+        } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
+            long line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
+            String msg = e.getOriginalMessage();
+            int nl = msg.indexOf('\n');
+            throw InputException.at(file.toString(), line, "bad JSON: " + (nl > 0 ? msg.substring(0, nl) : msg), e);
+        } catch (IOException e) {
+            throw new InputException(file + ": cannot read: " + e.getMessage(), e);
+        }
+    }
+
+    private static String text(JsonNode n, String key, Path file) {
+        JsonNode v = n.get(key);
+        if (v == null || !v.isTextual()) {
+            throw new InputException(file + ": missing or non-text key '" + key + "'");
+        }
+        return v.asText();
+    }
+
+    /** SHA-256 of a file's bytes as lower-case hex. */
+    public static String sha256(Path file) {
+        try (InputStream in = Files.newInputStream(file)) {
+            MessageDigest md = MessageDigest.getInstance("SHA-256");
+            byte[] buf = new byte[1 << 16];
+            int r;
+            while ((r = in.read(buf)) > 0) {
+                md.update(buf, 0, r);
+            }
+            return HexFormat.of().formatHex(md.digest());
+        } catch (IOException e) {
+            throw new InputException(file + ": cannot read: " + e.getMessage(), e);
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
+    private static Map<String, double[]> readCsv(Path file, int n) {
+        if (!Files.isRegularFile(file)) {
+            throw new InputException(file + ": no such file (not a survey directory?)");
+        }
+        String f = file.toString();
+        try (BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+            String header = r.readLine();
+            if (header == null) {
+                throw InputException.at(f, 1, "empty file, expected a header line");
+            }
+            String[] names = header.trim().split(",", -1);
+            Map<String, Integer> index = new HashMap<>();
+            for (int i = 0; i < names.length; i++) {
+                index.put(names[i].trim(), i);
+            }
+            for (String req : REQUIRED) {
+                if (!index.containsKey(req)) {
+                    throw InputException.at(f, 1, "missing column '" + req + "'");
+                }
+            }
+            double[][] data = new double[names.length][n];
+            boolean[] strict = new boolean[names.length];
+            boolean[] text = new boolean[names.length];
+            for (String req : REQUIRED) {
+                strict[index.get(req)] = true;
+            }
+            int row = 0;
+            long lineNo = 1;
+            String line;
+            int facetCol = index.get("facet");
+            while ((line = r.readLine()) != null) {
+                lineNo++;
+                if (line.isBlank()) {
+                    continue;
+                }
+                if (row >= n) {
+                    throw InputException.at(f, lineNo, "more rows than the model's " + n
+                        + " facets: this survey belongs to another model");
+                }
+                int start = 0;
+                for (int c = 0; c < names.length; c++) {
+                    int end = line.indexOf(',', start);
+                    if (end < 0) {
+                        if (c != names.length - 1) {
+                            throw InputException.at(f, lineNo, "expected " + names.length + " fields, got " + (c + 1));
+                        }
+                        end = line.length();
+                    }
+                    if (strict[c]) {
+                        data[c][row] = parse(line, start, end, f, lineNo, names[c]);
+                    } else if (text[c]) {
+                        data[c][row] = Double.NaN;
+                    } else {
+                        double v = parseLenient(line, start, end);
+                        data[c][row] = v;
+                        // a column holding text once is taken as a text column (no more parse attempts)
+                        text[c] = Double.isNaN(v) && !isNanText(line, start, end);
+                    }
+                    start = end + 1;
+                }
+                if (start <= line.length()) {
+                    throw InputException.at(f, lineNo, "more than " + names.length + " fields");
+                }
+                // exact comparison: facet indices are integers written as such
+                if (data[facetCol][row] != row) {
+                    throw InputException.at(f, lineNo, "facet " + data[facetCol][row] + " where " + row
+                        + " was expected (rows must follow the OBJ facet order)");
+                }
+                row++;
+            }
+            if (row != n) {
+                throw new InputException(f + ": " + row + " facet rows but the model has " + n
+                    + " facets: this survey belongs to another model");
+            }
+            Map<String, double[]> cols = new HashMap<>();
+            for (Map.Entry<String, Integer> e : index.entrySet()) {
+                cols.put(e.getKey(), data[e.getValue()]);
+            }
+            return cols;
+        } catch (IOException e) {
+            throw new InputException(f + ": cannot read: " + e.getMessage(), e);
+        }
+    }
+
+    private static double parse(String line, int start, int end, String file, long lineNo, String column) {
+        String s = line.substring(start, end).trim();
+        if (s.isEmpty() || s.equalsIgnoreCase("nan")) {
+            return Double.NaN;
+        }
+        try {
+            return Double.parseDouble(s);
+        } catch (NumberFormatException e) {
+            throw InputException.at(file, lineNo, "column '" + column + "': '" + s + "' is not a number");
+        }
+    }
+
+    private static boolean isNanText(String line, int start, int end) {
+        String s = line.substring(start, end).trim();
+        return s.isEmpty() || s.equalsIgnoreCase("nan");
+    }
+
+    /** Columns the viewer does not need may hold text: those cells read as NaN. */
+    private static double parseLenient(String line, int start, int end) {
+        try {
+            return Double.parseDouble(line.substring(start, end).trim());
+        } catch (NumberFormatException e) {
+            return Double.NaN;
+        }
+    }
+
+    private static List<Zone> zonesOf(double[] zone, Map<String, double[]> cols, int n) {
+        int maxRank = 0;
+        for (double z : zone) {
+            if (z > maxRank) {
+                maxRank = (int) Math.round(z);
+            }
+        }
+        int[] count = new int[maxRank + 1];
+        for (double z : zone) {
+            if (z >= 1) {
+                count[(int) Math.round(z)]++;
+            }
+        }
+        double[] cx = cols.get("cx_m");
+        double[] cy = cols.get("cy_m");
+        double[] cz = cols.get("cz_m");
+        List<Zone> out = new ArrayList<>();
+        for (int r = 1; r <= maxRank; r++) {
+            if (count[r] == 0) {
+                continue;
+            }
+            int[] members = new int[count[r]];
+            int k = 0;
+            double sx = 0;
+            double sy = 0;
+            double sz = 0;
+            for (int f = 0; f < n; f++) {
+                if (zone[f] >= 1 && (int) Math.round(zone[f]) == r) {
+                    members[k++] = f;
+                    sx += cx[f];
+                    sy += cy[f];
+                    sz += cz[f];
+                }
+            }
+            out.add(new Zone(r, members, new double[] {sx / k, sy / k, sz / k}));
+        }
+        return List.copyOf(out);
+    }
+
+    /** The survey directory. */
+    public Path directory() {
+        return dir;
+    }
+
+    public int facets() {
+        return facets;
+    }
+
+    /** SHA-256 of the model the survey was checked against. */
+    public String modelSha256() {
+        return modelSha256;
+    }
+
+    /** The values of a column by name (shared array: do not modify). */
+    public double[] column(String name) {
+        double[] c = columns.get(name);
+        if (c == null) {
+            throw new InputException(dir.resolve("facets.csv") + ": no column '" + name + "'");
+        }
+        return c;
+    }
+
+    /** True when the survey has this column. */
+    public boolean hasColumn(String name) {
+        return columns.containsKey(name);
+    }
+
+    /** Value of a column for one facet (NaN when the column is absent). */
+    public double value(String name, int facet) {
+        double[] c = columns.get(name);
+        return c == null ? Double.NaN : c[facet];
+    }
+
+    /** Ranked landing zones found in the {@code zone} column, by rank; centroid = mean of facet centroids (m). */
+    public List<Zone> zones() {
+        return zones;
+    }
+}
