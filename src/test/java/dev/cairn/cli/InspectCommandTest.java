@@ -121,6 +121,17 @@ class InspectCommandTest {
         assertTrue(r.out().contains("Volume       3.00000000 m^3"), r.out());
     }
 
+    @Test
+    void inwardModelIsFlippedWithAWarningOnStderr() throws Exception {
+        Path inward = dev.cairn.mesh.ObjFixtures.path("cube-inward.obj");
+        CliRun r = CliRun.of("inspect", inward.toString(), "--json", "--density", "1000");
+        assertEquals(0, r.exit(), r.err());
+        assertTrue(r.err().startsWith("cairn: warning: " + inward + ": facets face inward"), r.err());
+        JsonNode j = new ObjectMapper().readTree(r.out());
+        rel(1.0, j.get("volume_m3").asDouble(), "volume after the flip");
+        assertEquals(1, j.get("warnings").size());
+    }
+
     private static double sq(double x) {
         return x * x;
     }
