@@ -74,8 +74,10 @@ public final class CairnMain implements Runnable {
         });
         cl.setParameterExceptionHandler((ex, args) -> {
             PrintWriter err = ex.getCommandLine().getErr();
-            err.println("cairn: error: " + ex.getMessage());
-            err.println("Try '" + ex.getCommandLine().getCommandSpec().qualifiedName() + " --help'.");
+            // One line (issue 2: errors are one clear line on stderr), without picocli's own "Error: " prefix.
+            String msg = ex.getMessage().replaceFirst("^Error: ", "").strip().replaceAll("\\s*\\R\\s*", " ");
+            err.println("cairn: error: " + msg + " (see '" + ex.getCommandLine().getCommandSpec().qualifiedName()
+                + " --help')");
             err.flush();
             return EXIT_BAD_INPUT;
         });

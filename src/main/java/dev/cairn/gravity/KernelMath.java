@@ -70,6 +70,18 @@ final class KernelMath {
         return Math.copySign(a, y);
     }
 
+    /** Largest argument for which {@link #log1pSmall} is accurate to a few ulp. */
+    static final double LOG1P_SMALL_LIMIT = 1.0 / 255;
+
+    /**
+     * {@code ln(1 + x)} for {@code 0 ≤ x ≤ 1/255} by its Taylor series to x⁸ (truncation below 2e-20 relative): a few
+     * ulp, where {@code log(1 + x)} would lose digits to the rounding of {@code 1 + x} (far-field edge terms).
+     */
+    static double log1pSmall(double x) {
+        return x * (1 + x * (-1.0 / 2 + x * (1.0 / 3 + x * (-1.0 / 4 + x * (1.0 / 5 + x * (-1.0 / 6 + x * (1.0 / 7
+            + x * (-1.0 / 8))))))));
+    }
+
     /** Natural logarithm; exact to a few ulp for positive normal arguments, {@link Math#log} otherwise. */
     static double log(double x) {
         long bits = Double.doubleToRawLongBits(x);

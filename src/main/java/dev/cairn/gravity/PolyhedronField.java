@@ -63,6 +63,11 @@ public final class PolyhedronField implements FieldModel {
     private final double[] edy;
     /** Edge lengths, m. */
     private final double[] elen;
+    /**
+     * Squared distance from the vertex centroid beyond which every edge is more than 256 edge lengths away, so every
+     * log argument x = 2e/(a+b−e) is below 1/255 and ln(1 + x) is summed as a series (far-field accuracy).
+     */
+    private final double farDistance2;
 
     /**
      * @param mesh    closed, consistently outward-oriented mesh without zero-area facets, metres (check it with
@@ -153,6 +158,15 @@ public final class PolyhedronField implements FieldModel {
             addEdgeDyad(sym, normals, fb, -dx, -dy, -dz);
             System.arraycopy(sym, 0, edy, 6 * e, 6);
         }
+        double rmax = 0;
+        for (int i = 0; i < pv.length; i += 3) {
+            rmax = Math.max(rmax, Math.sqrt(pv[i] * pv[i] + pv[i + 1] * pv[i + 1] + pv[i + 2] * pv[i + 2]));
+        }
+        double emax = 0;
+        for (double l : elen) {
+            emax = Math.max(emax, l);
+        }
+        farDistance2 = (rmax + 256 * emax) * (rmax + 256 * emax);
     }
 
     private static void addEdgeDyad(double[] sym, double[] normals, int f, double dx, double dy, double dz) {
@@ -239,6 +253,7 @@ public final class PolyhedronField implements FieldModel {
             final double px = x - ox;
             final double py = y - oy;
             final double pz = z - oz;
+            final boolean far = px * px + py * py + pz * pz > farDistance2; // same for every edge: no misprediction
             final double[] r = this.r;
             final double[] pv = PolyhedronField.this.pv;
             for (int i = 0, k = 0, q = 0; i < vertexCount; i++, k += 3, q += 4) {
@@ -298,7 +313,8 @@ public final class PolyhedronField implements FieldModel {
                     if (!(den > 0)) {
                         continue; // at a vertex of the edge: the term's limit is 0
                     }
-                    le = KernelMath.log((s + len) / den);
+                    // Far away x = 2e/(a+b−e) is tiny and ln of the rounded ratio (1 + x) would lose digits.
+                    le = far ? KernelMath.log1pSmall(2 * len / den) : KernelMath.log((s + len) / den);
                 }
                 int q = 6 * e;
                 double exx = edy[q];
@@ -346,14 +362,21 @@ public final class PolyhedronField implements FieldModel {
                 double n1 = r[k1 + 3];
                 double n2 = r[k2 + 3];
                 double n3 = r[k3 + 3];
-                double num = r1x * (r2y * r3z - r2z * r3y) + r1y * (r2z * r3x - r2x * r3z)
-                    + r1z * (r2x * r3y - r2y * r3x);
+                // r1·(r2×r3) = r1·((r2−r1)×(r3−r1)): with the short edge vectors, far away the cross product does not
+                // cancel (the plain triple product loses ~D² digits at distance D body sizes).
+                double ux = r2x - r1x;
+                double uy = r2y - r1y;
+                double uz = r2z - r1z;
+                double vx = r3x - r1x;
+                double vy = r3y - r1y;
+                double vz = r3z - r1z;
+                double num = r1x * (uy * vz - uz * vy) + r1y * (uz * vx - ux * vz) + r1z * (ux * vy - uy * vx);
                 double prod = n1 * n2 * n3;
                 double den = prod + n1 * (r2x * r3x + r2y * r3y + r2z * r3z)
                     + n2 * (r3x * r1x + r3y * r1y + r3z * r1z) + n3 * (r1x * r2x + r1y * r2y + r1z * r2z);
                 double omega;
-                if (Math.abs(num) <= ON_FACET_TOLERANCE * prod && den <= ON_FACET_TOLERANCE * prod) {
-                    onSurface = true; // in the facet's plane and within it (interior, edge or vertex)
+                if (!(prod > 0) || Math.abs(num) <= ON_FACET_TOLERANCE * prod && den <= ON_FACET_TOLERANCE * prod) {
+                    onSurface = true; // on a vertex of the facet (prod = 0), or in its plane and within it
                     continue;
                 }
                 omega = 2 * KernelMath.atan2(num, den);

@@ -60,10 +60,9 @@ public final class ModelLoader {
         TriangleMesh mesh = read.mesh();
         EdgeTable edges = EdgeTable.of(mesh);
         MeshReport report = MeshInspector.inspect(mesh, edges);
-        if (report.inwardOriented()) {
-            warnings.add(obj + ": facets face inward (signed volume " + report.signedVolume()
-                + " m^3); all facets flipped to face outward");
-            mesh = mesh.flipped();
+        TriangleMesh oriented = MeshInspector.orientOutward(mesh, edges, report, obj.toString(), warnings);
+        if (oriented != mesh) {
+            mesh = oriented;
             edges = EdgeTable.of(mesh);
             report = MeshInspector.inspect(mesh, edges);
         }

@@ -9,7 +9,7 @@ import java.util.Arrays;
 
 /**
  * Reads field points from CSV: one point per line {@code x,y,z} in metres, model frame. Blank lines and lines
- * starting with {@code #} are skipped, and so is a first non-comment line that is not numeric (a header).
+ * starting with {@code #} are skipped, and so is a first non-comment line without any numeric field (a header).
  * Extra columns are refused: a malformed row is an {@link InputException} naming the file and line.
  */
 public final class PointsCsv {
@@ -34,7 +34,8 @@ public final class PointsCsv {
                     continue;
                 }
                 String[] parts = t.split(",", -1);
-                boolean header = first && !t.isEmpty() && !looksNumeric(parts[0].strip());
+                // A header has no numeric field; a first row with some numeric fields is data (and may be malformed).
+                boolean header = first && java.util.Arrays.stream(parts).noneMatch(f -> looksNumeric(f.strip()));
                 first = false;
                 if (header) {
                     continue;

@@ -198,6 +198,134 @@ public final class MeshInspector {
         return dup;
     }
 
+    /**
+     * Orients a closed, consistently oriented mesh outward. First, when the total signed volume is negative (the usual
+     * case: a single shell written inside out) every facet is flipped. Then any component that still faces inward is
+     * flipped when it lies outside every outward component (winding number of the outward components at one of its
+     * vertices below 1/2, from the facet solid angles of Van Oosterom &amp; Strackee 1983); an inward component inside
+     * an outward one is a cavity and stays as it is. Each flip adds a warning to {@code warnings}.
+     *
+     * @return {@code mesh} itself when nothing was flipped, else a new mesh
+     */
+    public static TriangleMesh orientOutward(TriangleMesh mesh, EdgeTable edges, MeshReport r, String name,
+                                             List<String> warnings) {
+        if (!r.closed() || r.inconsistentEdges() > 0) {
+            return mesh;
+        }
+        TriangleMesh work = mesh;
+        if (r.signedVolume() < 0) {
+            warnings.add(name + ": facets face inward (signed volume " + r.signedVolume()
+                + " m^3); all facets flipped to face outward");
+            work = mesh.flipped();
+        }
+        if (r.components() == 1) {
+            return work;
+        }
+        int nf = work.facetCount();
+        int[] root = componentRoots(nf, edges); // flipping every facet keeps the components
+        double[] xyz = work.xyz();
+        int[] tri = work.tri();
+        double[] bb = r.boundingBox();
+        double ox = 0.5 * (bb[0] + bb[3]);
+        double oy = 0.5 * (bb[1] + bb[4]);
+        double oz = 0.5 * (bb[2] + bb[5]);
+        double[] vol6 = new double[nf]; // indexed by component root
+        for (int f = 0; f < nf; f++) {
+            int a = 3 * tri[3 * f];
+            int b = 3 * tri[3 * f + 1];
+            int c = 3 * tri[3 * f + 2];
+            double ax = xyz[a] - ox;
+            double ay = xyz[a + 1] - oy;
+            double az = xyz[a + 2] - oz;
+            double bx = xyz[b] - ox;
+            double by = xyz[b + 1] - oy;
+            double bz = xyz[b + 2] - oz;
+            double cx = xyz[c] - ox;
+            double cy = xyz[c + 1] - oy;
+            double cz = xyz[c + 2] - oz;
+            vol6[root[f]] += ax * (by * cz - bz * cy) + ay * (bz * cx - bx * cz) + az * (bx * cy - by * cx);
+        }
+        boolean[] flip = new boolean[nf];
+        int nFlip = 0;
+        int firstFacet = -1;
+        for (int f = 0; f < nf; f++) {
+            if (root[f] != f || !(vol6[f] < 0)) {
+                continue; // not a component root, or an outward component
+            }
+            int p = 3 * tri[3 * f];
+            double omega = 0;
+            for (int g = 0; g < nf; g++) {
+                if (vol6[root[g]] > 0) {
+                    omega += solidAngle(xyz, tri, g, xyz[p], xyz[p + 1], xyz[p + 2]);
+                }
+            }
+            if (omega < 2 * Math.PI) {
+                flip[f] = true;
+                nFlip++;
+                if (firstFacet < 0) {
+                    firstFacet = f;
+                }
+            }
+        }
+        if (nFlip == 0) {
+            return work;
+        }
+        int[] t = tri.clone();
+        for (int f = 0; f < nf; f++) {
+            if (flip[root[f]]) {
+                int tmp = t[3 * f + 1];
+                t[3 * f + 1] = t[3 * f + 2];
+                t[3 * f + 2] = tmp;
+            }
+        }
+        warnings.add(name + ": " + nFlip + " of " + r.components() + " closed component(s) face inward and lie outside"
+            + " the others (first facet, 1-based: " + (firstFacet + 1) + "); their facets flipped to face outward");
+        return new TriangleMesh(xyz, t);
+    }
+
+    /** Solid angle of facet {@code f} seen from (px, py, pz), signed (Van Oosterom &amp; Strackee 1983). */
+    private static double solidAngle(double[] xyz, int[] tri, int f, double px, double py, double pz) {
+        int a = 3 * tri[3 * f];
+        int b = 3 * tri[3 * f + 1];
+        int c = 3 * tri[3 * f + 2];
+        double ax = xyz[a] - px;
+        double ay = xyz[a + 1] - py;
+        double az = xyz[a + 2] - pz;
+        double bx = xyz[b] - px;
+        double by = xyz[b + 1] - py;
+        double bz = xyz[b + 2] - pz;
+        double cx = xyz[c] - px;
+        double cy = xyz[c + 1] - py;
+        double cz = xyz[c + 2] - pz;
+        double la = Math.sqrt(ax * ax + ay * ay + az * az);
+        double lb = Math.sqrt(bx * bx + by * by + bz * bz);
+        double lc = Math.sqrt(cx * cx + cy * cy + cz * cz);
+        double num = ax * (by * cz - bz * cy) + ay * (bz * cx - bx * cz) + az * (bx * cy - by * cx);
+        double den = la * lb * lc + la * (bx * cx + by * cy + bz * cz) + lb * (cx * ax + cy * ay + cz * az)
+            + lc * (ax * bx + ay * by + az * bz);
+        return 2 * Math.atan2(num, den);
+    }
+
+    /** Union-find root (a facet index) of each facet's connected component across manifold edges. */
+    private static int[] componentRoots(int nf, EdgeTable edges) {
+        int[] parent = new int[nf];
+        for (int i = 0; i < nf; i++) {
+            parent[i] = i;
+        }
+        for (int e = 0; e < edges.edgeCount(); e++) {
+            int a = edges.facetForward(e);
+            int b = edges.facetBackward(e);
+            if (a >= 0 && b >= 0) {
+                union(parent, a, b);
+            }
+        }
+        int[] root = new int[nf];
+        for (int i = 0; i < nf; i++) {
+            root[i] = find(parent, i);
+        }
+        return root;
+    }
+
     private static int countComponents(int nf, EdgeTable edges) {
         int[] parent = new int[nf];
         for (int i = 0; i < nf; i++) {
