@@ -35,7 +35,8 @@ import dev.cairn.mesh.TriangleMesh;
  * </ul>
  * The gradient tensor diverges (logarithmically) at edges and vertices, as it physically does.
  *
- * <p>Precomputed state: per facet 3 vertex indices and the 6 unique components of F_f; per edge 2 vertex indices,
+ * <p>Precomputed state: per facet 3 vertex indices, the unit normal and twice the area (F_f = n_f n_fᵀ is applied
+ * as n_f (n_f·r)); per edge 2 vertex indices,
  * its length and the 6 unique components of the symmetric E_e; per vertex its 3 coordinates. Per field point,
  * each vertex's offset and distance and each edge's log term are computed once.
  */
@@ -55,8 +56,11 @@ public final class PolyhedronField implements FieldModel {
     private final double[] pv;
     /** Facet vertex indices. */
     private final int[] fv;
-    /** F_f unique components xx, xy, xz, yy, yz, zz. */
-    private final double[] fdy;
+    /**
+     * Facet unit normals n_f (x, y, z) and twice the facet area (4 doubles per facet). F_f = n_f n_fᵀ is never
+     * stored: F_f·r = n_f (n_f·r), and r1·(r2×r3) = 2A (n_f·r1) for any vertex r1 of the facet.
+     */
+    private final double[] fn;
     /** Edge vertex indices. */
     private final int[] ev;
     /** E_e unique components xx, xy, xz, yy, yz, zz. */
@@ -105,7 +109,7 @@ public final class PolyhedronField implements FieldModel {
         }
         fv = mesh.tri().clone();
         double[] normals = new double[3 * facetCount];
-        fdy = new double[6 * facetCount];
+        fn = new double[4 * facetCount];
         double vol6 = 0;
         for (int f = 0; f < facetCount; f++) {
             int a = 3 * fv[3 * f];
@@ -131,7 +135,10 @@ public final class PolyhedronField implements FieldModel {
             normals[3 * f] = nx;
             normals[3 * f + 1] = ny;
             normals[3 * f + 2] = nz;
-            putDyad(fdy, 6 * f, nx, ny, nz, nx, ny, nz);
+            fn[4 * f] = nx;
+            fn[4 * f + 1] = ny;
+            fn[4 * f + 2] = nz;
+            fn[4 * f + 3] = len;
         }
         volume = vol6 / 6.0;
         ev = new int[2 * edgeCount];
@@ -189,16 +196,6 @@ public final class PolyhedronField implements FieldModel {
         sym[5] += nz * mz;
     }
 
-    private static void putDyad(double[] d, int o, double ax, double ay, double az, double bx, double by,
-                                double bz) {
-        d[o] = ax * bx;
-        d[o + 1] = ax * by;
-        d[o + 2] = ax * bz;
-        d[o + 3] = ay * by;
-        d[o + 4] = ay * bz;
-        d[o + 5] = az * bz;
-    }
-
     /** Density, kg/m^3. */
     public double density() {
         return density;
@@ -223,7 +220,7 @@ public final class PolyhedronField implements FieldModel {
 
     /** Bytes of precomputed state per facet (vertex, facet and edge arrays), for the benchmark report. */
     public double bytesPerFacet() {
-        long bytes = 8L * pv.length + 4L * fv.length + 8L * fdy.length + 4L * ev.length + 8L * edy.length
+        long bytes = 8L * pv.length + 4L * fv.length + 8L * fn.length + 4L * ev.length + 8L * edy.length
             + 8L * elen.length;
         return (double) bytes / facetCount;
     }
@@ -342,7 +339,7 @@ public final class PolyhedronField implements FieldModel {
             double omegaSum = 0;
             boolean onSurface = false;
             final int[] fv = PolyhedronField.this.fv;
-            final double[] fdy = PolyhedronField.this.fdy;
+            final double[] fn = PolyhedronField.this.fn;
             for (int f = 0; f < facetCount; f++) {
                 int i1 = fv[3 * f];
                 int i2 = fv[3 * f + 1];
@@ -362,15 +359,14 @@ public final class PolyhedronField implements FieldModel {
                 double n1 = r[k1 + 3];
                 double n2 = r[k2 + 3];
                 double n3 = r[k3 + 3];
-                // r1·(r2×r3) = r1·((r2−r1)×(r3−r1)): with the short edge vectors, far away the cross product does not
-                // cancel (the plain triple product loses ~D² digits at distance D body sizes).
-                double ux = r2x - r1x;
-                double uy = r2y - r1y;
-                double uz = r2z - r1z;
-                double vx = r3x - r1x;
-                double vy = r3y - r1y;
-                double vz = r3z - r1z;
-                double num = r1x * (uy * vz - uz * vy) + r1y * (uz * vx - ux * vz) + r1z * (ux * vy - uy * vx);
+                // r1·(r2×r3) = r1·((P2−P1)×(P3−P1)) = 2A (n·r1): exact facet geometry, and far away no cancellation
+                // (the plain triple product of the long vectors r_i loses ~D² digits at distance D body sizes).
+                int q = 4 * f;
+                double nx = fn[q];
+                double ny = fn[q + 1];
+                double nz = fn[q + 2];
+                double h = nx * r1x + ny * r1y + nz * r1z; // signed distance of the facet's plane
+                double num = fn[q + 3] * h;
                 double prod = n1 * n2 * n3;
                 double den = prod + n1 * (r2x * r3x + r2y * r3y + r2z * r3z)
                     + n2 * (r3x * r1x + r3y * r1y + r3z * r1z) + n3 * (r1x * r2x + r1y * r2y + r1z * r2z);
@@ -380,28 +376,21 @@ public final class PolyhedronField implements FieldModel {
                     continue;
                 }
                 omega = 2 * KernelMath.atan2(num, den);
-                int q = 6 * f;
-                double fxx = fdy[q];
-                double fxy = fdy[q + 1];
-                double fxz = fdy[q + 2];
-                double fyy = fdy[q + 3];
-                double fyz = fdy[q + 4];
-                double fzz = fdy[q + 5];
-                double frx = fxx * r1x + fxy * r1y + fxz * r1z;
-                double fry = fxy * r1x + fyy * r1y + fyz * r1z;
-                double frz = fxz * r1x + fyz * r1y + fzz * r1z;
-                u -= (r1x * frx + r1y * fry + r1z * frz) * omega;
-                gx += frx * omega;
-                gy += fry * omega;
-                gz += frz * omega;
+                double ho = h * omega;
+                u -= h * ho; // r1·F·r1 ω = (n·r1)² ω
+                gx += nx * ho; // F·r1 ω = n (n·r1) ω
+                gy += ny * ho;
+                gz += nz * ho;
                 omegaSum += omega;
                 if (gradient) {
-                    txx -= fxx * omega;
-                    txy -= fxy * omega;
-                    txz -= fxz * omega;
-                    tyy -= fyy * omega;
-                    tyz -= fyz * omega;
-                    tzz -= fzz * omega;
+                    double nxo = nx * omega;
+                    double nyo = ny * omega;
+                    txx -= nx * nxo;
+                    txy -= ny * nxo;
+                    txz -= nz * nxo;
+                    tyy -= ny * nyo;
+                    tyz -= nz * nyo;
+                    tzz -= nz * nz * omega;
                 }
             }
             double gr = Constants.G * density;
