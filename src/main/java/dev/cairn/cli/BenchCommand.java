@@ -56,9 +56,13 @@ public final class BenchCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "Model: %s, %d facets, %d vertices, %d edges%n", body.source(), field.facetCount(),
             field.vertexCount(), field.edgeCount());
         out.printf(Locale.ROOT, "Precomputed state: %.1f bytes/facet%n", field.bytesPerFacet());
-        // Warm-up so the JIT has compiled the kernel before timing.
-        BatchEvaluation.evaluate(field, shellPoints(Math.max(50, points / 4), r, c, 7), false, all,
-            ProgressListener.NONE);
+        // Warm-up so the JIT has compiled the kernel (not only its loops on-stack) before timing: a few seconds'
+        // worth of short batches, which makes the evaluate method itself hot.
+        double[] warm = shellPoints(8, r, c, 7);
+        long warmUntil = System.nanoTime() + 3_000_000_000L;
+        while (System.nanoTime() < warmUntil) {
+            BatchEvaluation.evaluate(field, warm, false, 1, ProgressListener.NONE);
+        }
         for (int threads : new int[] {1, all}) {
             double best = Double.POSITIVE_INFINITY;
             for (int k = 0; k < repeat; k++) {

@@ -26,8 +26,9 @@ public final class MasconOptions {
     int mascons = 10000;
 
     @Option(names = "--mascon-scheme", paramLabel = "lattice|tetra", description = "Mascon generation: cubic "
-        + "lattice or facet tetrahedra split in shells (default: ${DEFAULT-VALUE}).")
-    String scheme = "tetra";
+        + "lattice or facet tetrahedra split in shells (default: ${DEFAULT-VALUE}, the more accurate above the "
+        + "surface; tetra keeps mass and centre of mass exact; see docs/mascons.md).")
+    String scheme = "lattice";
 
     /** The mascon set of {@code body} with these options' count and scheme. */
     static MasconSet generate(BodyModel body, String scheme, int count, int threads) {
