@@ -1,6 +1,7 @@
 package dev.cairn.mascon;
 
 import dev.cairn.mesh.EdgeTable;
+import dev.cairn.mesh.FacetGeometry;
 import dev.cairn.mesh.TriangleMesh;
 
 /**
@@ -190,7 +191,7 @@ public final class SurfaceQuery {
     public double winding(double x, double y, double z) {
         double sum = 0;
         for (int f = 0; f < facets; f++) {
-            sum += solidAngle(f, x, y, z);
+            sum += FacetGeometry.solidAngle(xyz, tri, f, x, y, z);
         }
         return sum / (4 * Math.PI);
     }
@@ -209,7 +210,7 @@ public final class SurfaceQuery {
         double sum = 0;
         double best = Double.POSITIVE_INFINITY;
         for (int f = 0; f < facets; f++) {
-            sum += solidAngle(f, x, y, z);
+            sum += FacetGeometry.solidAngle(xyz, tri, f, x, y, z);
             double d2 = distanceSquared(f, x, y, z, null);
             if (d2 < best) {
                 best = d2;
@@ -235,65 +236,12 @@ public final class SurfaceQuery {
     public double farthestHit(double ox, double oy, double oz, double dx, double dy, double dz) {
         double best = Double.NaN;
         for (int f = 0; f < facets; f++) {
-            int a = 3 * tri[3 * f];
-            int b = 3 * tri[3 * f + 1];
-            int c = 3 * tri[3 * f + 2];
-            double e1x = xyz[b] - xyz[a];
-            double e1y = xyz[b + 1] - xyz[a + 1];
-            double e1z = xyz[b + 2] - xyz[a + 2];
-            double e2x = xyz[c] - xyz[a];
-            double e2y = xyz[c + 1] - xyz[a + 1];
-            double e2z = xyz[c + 2] - xyz[a + 2];
-            double px = dy * e2z - dz * e2y;
-            double py = dz * e2x - dx * e2z;
-            double pz = dx * e2y - dy * e2x;
-            double det = e1x * px + e1y * py + e1z * pz;
-            if (det == 0) {
-                continue; // exact zero: ray parallel to the facet's plane, no single crossing
-            }
-            double inv = 1 / det;
-            double tx = ox - xyz[a];
-            double ty = oy - xyz[a + 1];
-            double tz = oz - xyz[a + 2];
-            double u = (tx * px + ty * py + tz * pz) * inv;
-            if (u < 0 || u > 1) {
-                continue;
-            }
-            double qx = ty * e1z - tz * e1y;
-            double qy = tz * e1x - tx * e1z;
-            double qz = tx * e1y - ty * e1x;
-            double v = (dx * qx + dy * qy + dz * qz) * inv;
-            if (v < 0 || u + v > 1) {
-                continue;
-            }
-            double t = (e2x * qx + e2y * qy + e2z * qz) * inv;
+            double t = FacetGeometry.rayHit(xyz, tri, f, ox, oy, oz, dx, dy, dz, 0);
             if (t > 0 && !(t <= best)) {
                 best = t;
             }
         }
         return best;
-    }
-
-    private double solidAngle(int f, double x, double y, double z) {
-        int a = 3 * tri[3 * f];
-        int b = 3 * tri[3 * f + 1];
-        int c = 3 * tri[3 * f + 2];
-        double r1x = xyz[a] - x;
-        double r1y = xyz[a + 1] - y;
-        double r1z = xyz[a + 2] - z;
-        double r2x = xyz[b] - x;
-        double r2y = xyz[b + 1] - y;
-        double r2z = xyz[b + 2] - z;
-        double r3x = xyz[c] - x;
-        double r3y = xyz[c + 1] - y;
-        double r3z = xyz[c + 2] - z;
-        double n1 = Math.sqrt(r1x * r1x + r1y * r1y + r1z * r1z);
-        double n2 = Math.sqrt(r2x * r2x + r2y * r2y + r2z * r2z);
-        double n3 = Math.sqrt(r3x * r3x + r3y * r3y + r3z * r3z);
-        double num = r1x * (r2y * r3z - r2z * r3y) + r1y * (r2z * r3x - r2x * r3z) + r1z * (r2x * r3y - r2y * r3x);
-        double den = n1 * n2 * n3 + n1 * (r2x * r3x + r2y * r3y + r2z * r3z)
-            + n2 * (r3x * r1x + r3y * r1y + r3z * r1z) + n3 * (r1x * r2x + r1y * r2y + r1z * r2z);
-        return 2 * Math.atan2(num, den);
     }
 
     /** Squared distance from the point to facet {@code f} (Ericson 2005, closest point on triangle). */

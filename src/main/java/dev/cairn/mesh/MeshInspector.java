@@ -256,7 +256,7 @@ public final class MeshInspector {
             double omega = 0;
             for (int g = 0; g < nf; g++) {
                 if (vol6[root[g]] > 0) {
-                    omega += solidAngle(xyz, tri, g, xyz[p], xyz[p + 1], xyz[p + 2]);
+                    omega += FacetGeometry.solidAngle(xyz, tri, g, xyz[p], xyz[p + 1], xyz[p + 2]);
                 }
             }
             if (omega < 2 * Math.PI) {
@@ -281,29 +281,6 @@ public final class MeshInspector {
         warnings.add(name + ": " + nFlip + " of " + r.components() + " closed component(s) face inward and lie outside"
             + " the others (first facet, 1-based: " + (firstFacet + 1) + "); their facets flipped to face outward");
         return new TriangleMesh(xyz, t);
-    }
-
-    /** Solid angle of facet {@code f} seen from (px, py, pz), signed (Van Oosterom &amp; Strackee 1983). */
-    private static double solidAngle(double[] xyz, int[] tri, int f, double px, double py, double pz) {
-        int a = 3 * tri[3 * f];
-        int b = 3 * tri[3 * f + 1];
-        int c = 3 * tri[3 * f + 2];
-        double ax = xyz[a] - px;
-        double ay = xyz[a + 1] - py;
-        double az = xyz[a + 2] - pz;
-        double bx = xyz[b] - px;
-        double by = xyz[b + 1] - py;
-        double bz = xyz[b + 2] - pz;
-        double cx = xyz[c] - px;
-        double cy = xyz[c + 1] - py;
-        double cz = xyz[c + 2] - pz;
-        double la = Math.sqrt(ax * ax + ay * ay + az * az);
-        double lb = Math.sqrt(bx * bx + by * by + bz * bz);
-        double lc = Math.sqrt(cx * cx + cy * cy + cz * cz);
-        double num = ax * (by * cz - bz * cy) + ay * (bz * cx - bx * cz) + az * (bx * cy - by * cx);
-        double den = la * lb * lc + la * (bx * cx + by * cy + bz * cz) + lb * (cx * ax + cy * ay + cz * az)
-            + lc * (ax * bx + ay * by + az * bz);
-        return 2 * Math.atan2(num, den);
     }
 
     /** Union-find root (a facet index) of each facet's connected component across manifold edges. */

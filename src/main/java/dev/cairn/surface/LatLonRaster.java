@@ -1,5 +1,6 @@
 package dev.cairn.surface;
 
+import dev.cairn.mesh.FacetGeometry;
 import dev.cairn.mesh.TriangleMesh;
 import dev.cairn.rotation.RotatingFrame;
 import dev.cairn.util.ParallelChunks;
@@ -198,39 +199,10 @@ public final class LatLonRaster {
 
     /** Ray {@code c + t d} against facet {@code f}: the distance t &gt; 0 of the hit, or -1 (Möller–Trumbore). */
     static double hit(double[] xyz, int[] tri, int f, double[] c, double dx, double dy, double dz) {
-        int a = 3 * tri[3 * f];
-        int b = 3 * tri[3 * f + 1];
-        int e = 3 * tri[3 * f + 2];
-        double e1x = xyz[b] - xyz[a];
-        double e1y = xyz[b + 1] - xyz[a + 1];
-        double e1z = xyz[b + 2] - xyz[a + 2];
-        double e2x = xyz[e] - xyz[a];
-        double e2y = xyz[e + 1] - xyz[a + 1];
-        double e2z = xyz[e + 2] - xyz[a + 2];
-        double px = dy * e2z - dz * e2y;
-        double py = dz * e2x - dx * e2z;
-        double pz = dx * e2y - dy * e2x;
-        double det = e1x * px + e1y * py + e1z * pz;
-        if (det == 0) { // exact: ray parallel to the facet plane
-            return -1;
-        }
-        double inv = 1 / det;
-        double tx = c[0] - xyz[a];
-        double ty = c[1] - xyz[a + 1];
-        double tz = c[2] - xyz[a + 2];
-        double u = (tx * px + ty * py + tz * pz) * inv;
-        final double eps = 1e-12;
-        if (u < -eps || u > 1 + eps) {
-            return -1;
-        }
-        double qx = ty * e1z - tz * e1y;
-        double qy = tz * e1x - tx * e1z;
-        double qz = tx * e1y - ty * e1x;
-        double v = (dx * qx + dy * qy + dz * qz) * inv;
-        if (v < -eps || u + v > 1 + eps) {
-            return -1;
-        }
-        double t = (e2x * qx + e2y * qy + e2z * qz) * inv;
+        double t = FacetGeometry.rayHit(xyz, tri, f, c[0], c[1], c[2], dx, dy, dz, EDGE_TOLERANCE);
         return t > 0 ? t : -1;
     }
+
+    /** Barycentric slack so that a ray through a shared edge or vertex hits at least one facet. */
+    private static final double EDGE_TOLERANCE = 1e-12;
 }
