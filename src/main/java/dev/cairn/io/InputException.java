@@ -28,4 +28,26 @@ public class InputException extends RuntimeException {
     public static InputException at(String file, long line, String problem, Throwable cause) {
         return new InputException(line > 0 ? file + ":" + line + ": " + problem : file + ": " + problem, cause);
     }
+
+    /**
+     * One-line error for a JSON file that Jackson could not read: {@code file:line: what: first line of Jackson's
+     * message}. An unknown key is named without Jackson's class details and points to {@code keysDoc}.
+     *
+     * @param what    e.g. "bad model sidecar"
+     * @param keysDoc document listing the allowed keys (e.g. "docs/model-sidecar.md"), or null
+     */
+    public static InputException json(java.nio.file.Path file, com.fasterxml.jackson.core.JsonProcessingException e,
+                                      String what, String keysDoc) {
+        long line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
+        String msg = e.getOriginalMessage();
+        int nl = msg.indexOf('\n');
+        if (nl > 0) {
+            msg = msg.substring(0, nl);
+        }
+        if (msg.startsWith("Unrecognized field")) {
+            msg = msg.replaceFirst("\\s*\\(class [^)]*\\).*", "")
+                + (keysDoc == null ? "" : " (see " + keysDoc + " for the keys)");
+        }
+        return at(file.toString(), line, what + ": " + msg, e);
+    }
 }

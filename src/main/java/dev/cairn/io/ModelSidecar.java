@@ -55,16 +55,7 @@ public final class ModelSidecar {
         try {
             return MAPPER.readValue(Files.readAllBytes(file), ModelSidecar.class);
         } catch (JsonProcessingException e) {
-            long line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
-            String msg = e.getOriginalMessage();
-            int nl = msg.indexOf('\n');
-            if (nl > 0) {
-                msg = msg.substring(0, nl);
-            }
-            if (msg.startsWith("Unrecognized field")) {
-                msg = msg.replaceFirst("\\s*\\(class [^)]*\\).*", "") + " (see docs/model-sidecar.md for the keys)";
-            }
-            throw InputException.at(file.toString(), line, "bad model sidecar: " + msg, e);
+            throw InputException.json(file, e, "bad model sidecar", "docs/model-sidecar.md");
         } catch (IOException e) {
             throw new InputException(file + ": cannot read: " + e.getMessage(), e);
         }

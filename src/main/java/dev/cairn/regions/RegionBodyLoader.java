@@ -63,16 +63,7 @@ public final class RegionBodyLoader {
             }
             d = MAPPER.readValue(bytes, BodyDescription.class);
         } catch (JsonProcessingException e) {
-            long line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
-            String msg = e.getOriginalMessage();
-            int nl = msg.indexOf('\n');
-            if (nl > 0) {
-                msg = msg.substring(0, nl);
-            }
-            if (msg.startsWith("Unrecognized field")) {
-                msg = msg.replaceFirst("\\s*\\(class [^)]*\\).*", "") + " (see docs/mascons.md for the keys)";
-            }
-            throw InputException.at(file.toString(), line, "bad body description: " + msg, e);
+            throw InputException.json(file, e, "bad body description", "docs/mascons.md");
         } catch (IOException e) {
             throw new InputException(file + ": cannot read: " + e.getMessage(), e);
         }

@@ -141,8 +141,7 @@ public final class TableFiles {
         try {
             return MAPPER.readValue(Files.readAllBytes(file), new TypeReference<java.util.LinkedHashMap<String, Object>>() { });
         } catch (JsonProcessingException e) {
-            long line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
-            throw InputException.at(file.toString(), line, "bad JSON: " + e.getOriginalMessage().split("\n")[0], e);
+            throw InputException.json(file, e, "bad JSON", null);
         } catch (IOException e) {
             throw new InputException(file + ": cannot read: " + e.getMessage(), e);
         }

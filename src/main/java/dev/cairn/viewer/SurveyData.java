@@ -109,10 +109,7 @@ public final class SurveyData {
             }
             return n;
         } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
-            long line = e.getLocation() == null ? 0 : e.getLocation().getLineNr();
-            String msg = e.getOriginalMessage();
-            int nl = msg.indexOf('\n');
-            throw InputException.at(file.toString(), line, "bad JSON: " + (nl > 0 ? msg.substring(0, nl) : msg), e);
+            throw InputException.json(file, e, "bad JSON", null);
         } catch (IOException e) {
             throw new InputException(file + ": cannot read: " + e.getMessage(), e);
         }
