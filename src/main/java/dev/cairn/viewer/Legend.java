@@ -27,6 +27,35 @@ public record Legend(String title, String units, Quantity.Kind kind, double min,
     }
 
     /** "slope (deg)" or just the title. */
+    /**
+     * Tick values for the colour bar: the two ends (exact range) plus round numbers between them (steps of 1, 2, 2.5
+     * or 5 times a power of ten, the nearest to a quarter of the range), leaving out round values closer to an end than 8 % of the
+     * range so that labels do not overlap. Ascending.
+     */
+    public static double[] ticks(double min, double max) {
+        if (!(max > min) || !Double.isFinite(min) || !Double.isFinite(max)) {
+            return new double[] {min};
+        }
+        double raw = (max - min) / 4;
+        double p = Math.pow(10, Math.floor(Math.log10(raw)));
+        double step = p;
+        for (double m : new double[] {1, 2, 2.5, 5, 10}) {
+            if (Math.abs(Math.log(m * p / raw)) < Math.abs(Math.log(step / raw))) {
+                step = m * p; // the round step nearest (in ratio) to a quarter of the range
+            }
+        }
+        double gap = 0.08 * (max - min);
+        java.util.List<Double> t = new java.util.ArrayList<>();
+        t.add(min);
+        for (double v = Math.ceil(min / step) * step; v < max; v += step) {
+            if (v - min >= gap && max - v >= gap) {
+                t.add(Math.abs(v) < 1e-12 * step ? 0.0 : v);
+            }
+        }
+        t.add(max);
+        return t.stream().mapToDouble(Double::doubleValue).toArray();
+    }
+
     public String heading() {
         return units.isEmpty() ? title : title + " (" + units + ")";
     }

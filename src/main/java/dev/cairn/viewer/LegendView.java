@@ -18,7 +18,6 @@ final class LegendView extends VBox {
     /** Height of the colour bar, pixels. */
     static final double BAR_HEIGHT = 280;
     static final double BAR_WIDTH = 26;
-    private static final int TICKS = 5;
     static final Color TEXT = Color.rgb(230, 232, 235);
 
     LegendView() {
@@ -66,12 +65,12 @@ final class LegendView extends VBox {
         Rectangle frame = new Rectangle(BAR_WIDTH, BAR_HEIGHT, Color.TRANSPARENT);
         frame.setStroke(Color.gray(0.7));
         p.getChildren().add(frame);
-        for (int k = 0; k < TICKS; k++) {
-            double t = k / (double) (TICKS - 1);
+        for (double v : Legend.ticks(min, max)) {
+            double t = max > min ? (v - min) / (max - min) : 0;
             double y = (1 - t) * BAR_HEIGHT;
             Rectangle tick = new Rectangle(BAR_WIDTH, y - 0.5, 6, 1);
             tick.setFill(Color.gray(0.7));
-            Label l = label(format(min + t * (max - min)), 12, false);
+            Label l = label(format(v), 12, false);
             l.setLayoutX(BAR_WIDTH + 10);
             l.setLayoutY(y - 8);
             p.getChildren().addAll(tick, l);
