@@ -179,4 +179,26 @@ public final class TestShapes {
     public static void achieved(String check, double value) {
         System.out.printf(Locale.ROOT, "[achieved] %s: %.3g%n", check, value);
     }
+
+    /**
+     * A closed, outward box of square cross-section {@code width} whose axis runs from {@code p} to {@code q}
+     * (horizontal axis assumed: the cross-section spans the horizontal normal and z).
+     */
+    public static TriangleMesh bar(double[] p, double[] q, double width) {
+        double ax = q[0] - p[0];
+        double ay = q[1] - p[1];
+        double len = Math.hypot(ax, ay);
+        double[] w = {-ay / len * width, ax / len * width, 0};
+        double[] h = {0, 0, width};
+        TriangleMesh unit = dev.cairn.mesh.Shapes.unitCube();
+        double[] u = unit.xyz();
+        double[] xyz = new double[u.length];
+        for (int i = 0; i < u.length; i += 3) {
+            for (int k = 0; k < 3; k++) {
+                xyz[i + k] = p[k] + u[i] * (q[k] - p[k]) + (u[i + 1] - 0.5) * w[k] + (u[i + 2] - 0.5) * h[k];
+            }
+        }
+        TriangleMesh m = new TriangleMesh(xyz, unit.tri());
+        return dev.cairn.mesh.MeshInspector.inspect(m).signedVolume() < 0 ? m.flipped() : m;
+    }
 }

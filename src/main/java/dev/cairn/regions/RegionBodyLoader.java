@@ -12,6 +12,7 @@ import dev.cairn.mesh.EdgeTable;
 import dev.cairn.mesh.MeshInspector;
 import dev.cairn.mesh.MeshReport;
 import dev.cairn.mesh.ObjReader;
+import dev.cairn.mesh.SurfaceCrossing;
 import dev.cairn.mesh.TriangleMesh;
 import java.io.IOException;
 import java.nio.file.Files;
@@ -30,8 +31,9 @@ import java.util.Set;
  * <p>Nesting check: each vertex of one region is classified against every other region's surface by the solid-angle
  * winding number ({@link SurfaceQuery}); a vertex within {@link #ON_SURFACE_TOLERANCE} (relative to the outer shape's
  * size) of the other surface counts as on it and is compatible with both inside and outside. A region whose vertices
- * lie partly inside and partly outside another crosses it and is refused. (A crossing between two surfaces whose
- * vertices all lie on the right sides, edges piercing facets, is not detected; fine meshes make that unlikely.)
+ * lie partly inside and partly outside another crosses it and is refused. Surfaces can also cross while every vertex
+ * lies on the right side, when an edge of one pierces a facet of the other; that is found by
+ * {@link SurfaceCrossing} (both ways round, for every pair of regions) and refused too.
  */
 public final class RegionBodyLoader {
     /** Vertex-to-surface distance, relative to the outer shape's bounding-box diagonal, that counts as "on it". */
@@ -278,6 +280,19 @@ public final class RegionBodyLoader {
                 }
                 if (out[i][j] == 0 && (volumes[i] < volumes[parent[j]] || parent[j] == 0)) {
                     parent[j] = i;
+                }
+            }
+        }
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) {
+                int[] c = i == j ? null : SurfaceCrossing.firstCrossing(meshes[i], meshes[j], ON_SURFACE_TOLERANCE);
+                if (c != null) {
+                    String which = i == 0 ? "region '" + rn[j] + "' crosses the outer shape '" + rn[0] + "'"
+                        : j == 0 ? "region '" + rn[i] + "' crosses the outer shape '" + rn[0] + "'"
+                        : "regions '" + rn[i] + "' and '" + rn[j] + "' cross";
+                    throw new InputException(where + ": " + which + ": edge " + (c[0] + 1) + "-" + (c[1] + 1) + " of '"
+                        + rn[j] + "' (1-based vertices) pierces facet " + (c[2] + 1) + " of '" + rn[i]
+                        + "'; regions must nest or be disjoint");
                 }
             }
         }

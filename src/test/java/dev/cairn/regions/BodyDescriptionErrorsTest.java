@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import dev.cairn.io.InputException;
 import dev.cairn.io.ModelLoader;
 import dev.cairn.io.ModelRequest;
+import dev.cairn.TestShapes;
 import dev.cairn.mesh.Shapes;
 import java.nio.file.Path;
 import org.junit.jupiter.api.BeforeEach;
@@ -69,6 +70,21 @@ class BodyDescriptionErrorsTest {
         String m = fails("{\"regions\": [" + region("mantle", "outer.obj", 1500) + ", "
             + region("lump", "poking.obj", 2500) + "]}");
         assertTrue(m.contains("region 'lump' extends outside the outer shape 'mantle'"), m);
+    }
+
+    /**
+     * A bar whose eight vertices all lie inside an L-shaped outer body but whose long edges cut across the notch of
+     * the L: no vertex is on the wrong side, yet the surfaces cross (geometry: the segment from (1.8, 0.8) to
+     * (0.8, 1.8) km passes (1.3, 1.3), outside the L).
+     */
+    @Test
+    void regionWhoseEdgesPierceTheOuterShape() throws Exception {
+        TestFiles.obj(dir, "ell.obj", TestShapes.lShape().scaled(1000));
+        TestFiles.obj(dir, "bar.obj", TestShapes.bar(new double[] {1800, 800, 500},
+            new double[] {800, 1800, 500}, 100));
+        String m = fails("{\"regions\": [" + region("mantle", "ell.obj", 1500) + ", "
+            + region("bar", "bar.obj", 2500) + "]}");
+        assertTrue(m.contains("region 'bar' crosses the outer shape 'mantle'") && m.contains("pierces facet"), m);
     }
 
     @Test
