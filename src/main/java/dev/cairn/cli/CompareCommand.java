@@ -69,7 +69,7 @@ public final class CompareCommand implements Callable<Integer> {
 
     @Option(names = "--mascon-scheme", paramLabel = "lattice|tetra", description = "Mascon generation scheme "
         + "(default: ${DEFAULT-VALUE}).")
-    String scheme = "tetra";
+    String scheme = MasconOptions.DEFAULT_SCHEME;
 
     @Option(names = "--altitudes", paramLabel = "M[,M...]", split = ",", description = "Shell altitudes above the "
         + "surface, m (default: 0.05, 0.25 and 1 times the equivalent radius).")
