@@ -9,6 +9,27 @@ public final class FacetGeometry {
     }
 
     /**
+     * Six times the signed volume of the tetrahedron (o, P1, P2, P3) of facet {@code f}: (P1−o)·((P2−o)×(P3−o)),
+     * cubic metres. Summed over a closed surface it is six times the enclosed volume, positive for outward facets
+     * (Tonon 2005, J. Math. Stat. 1(1):8–11).
+     */
+    public static double signedVolume6(double[] xyz, int[] tri, int f, double ox, double oy, double oz) {
+        int a = 3 * tri[3 * f];
+        int b = 3 * tri[3 * f + 1];
+        int c = 3 * tri[3 * f + 2];
+        double ax = xyz[a] - ox;
+        double ay = xyz[a + 1] - oy;
+        double az = xyz[a + 2] - oz;
+        double bx = xyz[b] - ox;
+        double by = xyz[b + 1] - oy;
+        double bz = xyz[b + 2] - oz;
+        double cx = xyz[c] - ox;
+        double cy = xyz[c + 1] - oy;
+        double cz = xyz[c + 2] - oz;
+        return ax * (by * cz - bz * cy) + ay * (bz * cx - bx * cz) + az * (bx * cy - by * cx);
+    }
+
+    /**
      * Signed solid angle (steradians) that facet {@code f} subtends at {@code (px, py, pz)}: positive when the point
      * sees the facet's back (inside of an outward-oriented surface). Van Oosterom, A. &amp; Strackee, J. (1983) The
      * solid angle of a plane triangle, IEEE Trans. Biomed. Eng. BME-30(2):125–126. Summed over a closed outward

@@ -231,19 +231,7 @@ public final class MeshInspector {
         double oz = 0.5 * (bb[2] + bb[5]);
         double[] vol6 = new double[nf]; // indexed by component root
         for (int f = 0; f < nf; f++) {
-            int a = 3 * tri[3 * f];
-            int b = 3 * tri[3 * f + 1];
-            int c = 3 * tri[3 * f + 2];
-            double ax = xyz[a] - ox;
-            double ay = xyz[a + 1] - oy;
-            double az = xyz[a + 2] - oz;
-            double bx = xyz[b] - ox;
-            double by = xyz[b + 1] - oy;
-            double bz = xyz[b + 2] - oz;
-            double cx = xyz[c] - ox;
-            double cy = xyz[c + 1] - oy;
-            double cz = xyz[c + 2] - oz;
-            vol6[root[f]] += ax * (by * cz - bz * cy) + ay * (bz * cx - bx * cz) + az * (bx * cy - by * cx);
+            vol6[root[f]] += FacetGeometry.signedVolume6(xyz, tri, f, ox, oy, oz);
         }
         boolean[] flip = new boolean[nf];
         int nFlip = 0;
