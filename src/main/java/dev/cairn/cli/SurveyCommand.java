@@ -10,8 +10,11 @@ import dev.cairn.surface.SurveyParameters;
 import dev.cairn.surface.SurveyResult;
 import dev.cairn.util.ParallelChunks;
 import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.nio.file.Path;
 import java.nio.file.Paths;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -102,16 +105,15 @@ public final class SurveyCommand implements Callable<Integer> {
      */
     private void renderViews(BodyModel body, PrintWriter err) {
         for (String[] v : VIEWS) {
-            java.util.List<String> args = new java.util.ArrayList<>(java.util.List.of("render",
-                body.source().toString()));
+            List<String> args = new ArrayList<>(List.of("render", body.source().toString()));
             if (body.source().toString().endsWith(".obj")) {
-                args.addAll(java.util.List.of("--units", body.lengthUnit()));
+                args.addAll(List.of("--units", body.lengthUnit()));
             }
             Path png = out.resolve("view-" + v[0] + "-" + v[1].replace("+", "plus") + ".png");
-            args.addAll(java.util.List.of("--survey", out.toString(), "--quantity", v[0], "--view", v[1],
+            args.addAll(List.of("--survey", out.toString(), "--quantity", v[0], "--view", v[1],
                 "--out", png.toString()));
-            java.io.StringWriter renderErr = new java.io.StringWriter();
-            int code = CairnMain.execute(new PrintWriter(new java.io.StringWriter()), new PrintWriter(renderErr),
+            StringWriter renderErr = new StringWriter();
+            int code = CairnMain.execute(new PrintWriter(new StringWriter()), new PrintWriter(renderErr),
                 args.toArray(new String[0]));
             if (code != 0) {
                 err.println("cairn: warning: 3D views skipped: " + renderErr.toString().strip().replaceFirst(
