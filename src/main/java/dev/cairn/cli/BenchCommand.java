@@ -21,6 +21,7 @@ import picocli.CommandLine.Spec;
  * assertions: machines are shared and noisy, so speed targets are checked here and never in unit tests.
  */
 @Command(name = "bench", mixinStandardHelpOptions = true,
+    header = "Measure the speed of the field kernels (figures, not tests).",
     description = "Measure polyhedron field throughput on a model (default: the demo body).")
 public final class BenchCommand implements Callable<Integer> {
     @Mixin

@@ -30,6 +30,8 @@ import picocli.CommandLine.Command;
 public final class CairnMain implements Runnable {
     /** Exit code for bad input. */
     public static final int EXIT_BAD_INPUT = 2;
+    /** Width of the help text, columns: wide enough that no description line wraps. */
+    static final int USAGE_WIDTH = 120;
     /** Exit code for an internal error. */
     public static final int EXIT_INTERNAL = 1;
 
@@ -52,6 +54,7 @@ public final class CairnMain implements Runnable {
     /** The configured picocli command line with Cairn's error handling. */
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new CairnMain());
+        cl.setUsageHelpWidth(USAGE_WIDTH);
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             boolean debug = parseResult.originalArgs().contains("--debug");
             PrintWriter err = commandLine.getErr();

@@ -35,6 +35,7 @@ import picocli.CommandLine.Spec;
  * percentiles (nearest rank), and the largest relative potential error. Points inside the body are left out.
  */
 @Command(name = "compare", mixinStandardHelpOptions = true,
+    header = "Compare two field models of one body on shells above the surface.",
     description = {"Compare two gravity field models of one body on spherical shells (relative acceleration error).",
         "Shells: --altitudes above the surface (radially from the centre of mass) or --radii from the centre of mass,",
         "metres. Conventions: SI units, model frame, U > 0, acceleration = grad U.",

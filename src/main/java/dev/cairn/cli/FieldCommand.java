@@ -21,6 +21,7 @@ import picocli.CommandLine.Spec;
 
 /** {@code cairn field}: the field of a model at points read from CSV. */
 @Command(name = "field", mixinStandardHelpOptions = true,
+    header = "Evaluate the gravity field at points read from CSV.",
     description = {"Evaluate the gravity field at points given in a CSV file (x,y,z in metres, model frame).",
         "Output CSV: potential U > 0 (m^2/s^2), acceleration = grad U (m/s^2), Laplacian (1/s^2), location,",
         "and with --gradient the gravity-gradient tensor (1/s^2).",

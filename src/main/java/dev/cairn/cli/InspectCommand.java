@@ -17,6 +17,7 @@ import picocli.CommandLine.Spec;
 
 /** {@code cairn inspect}: mesh checks and mass properties of a shape model. */
 @Command(name = "inspect", mixinStandardHelpOptions = true,
+    header = "Check a shape model and report its mass properties.",
     description = {"Check a shape model and report its mass properties (SI units, model frame).",
         "Inertia is about the centre of mass, model axes."})
 public final class InspectCommand implements Callable<Integer> {

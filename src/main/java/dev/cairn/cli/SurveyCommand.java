@@ -27,6 +27,7 @@ import picocli.CommandLine.Spec;
  * escape speed, landing and hovering zones), written to an output directory, with a short report on the terminal.
  */
 @Command(name = "survey", mixinStandardHelpOptions = true,
+    header = "Survey the surface of the spinning body (slope, gravity, landing and hovering zones).",
     description = {"Survey the surface of the spinning body: slope, effective gravity,",
         "dynamic height, lift-off, escape speed, landing zones and hovering points.",
         "Writes facets.csv, summary.json, surface.vtk and PNG maps to --out.",

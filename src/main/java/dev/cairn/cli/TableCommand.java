@@ -35,6 +35,7 @@ import picocli.CommandLine.Spec;
 
 /** {@code cairn table}: an acceleration table on a box, spherical or point grid, with an accuracy report. */
 @Command(name = "table", mixinStandardHelpOptions = true,
+    header = "Tabulate the field on a grid for simulators (.npy or .csv, with accuracy report).",
     description = {"Tabulate potential and acceleration (optionally the gradient tensor and",
         "the effective quantities of the rotating body) on a grid, for fast",
         "interpolation in simulators. Writes FILE (.npy or .csv) and FILE.json",

@@ -23,6 +23,7 @@ import picocli.CommandLine.Spec;
 
 /** {@code cairn table-merge}: joins the shards of a table made with {@code cairn table --shard I/N}. */
 @Command(name = "table-merge", mixinStandardHelpOptions = true,
+    header = "Merge table shards into one table.",
     description = {"Merge table shards (made with 'cairn table ... --shard I/N') into one",
         "table. The data file is byte-identical to the one a single run writes;",
         "the sidecar keeps the earliest shard's creation time. The accuracy report",

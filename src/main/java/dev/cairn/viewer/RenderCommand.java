@@ -20,6 +20,7 @@ import picocli.CommandLine.Spec;
  * No JavaFX type appears in this class: the toolkit starts inside {@link #call()} (via {@link RenderJob}).
  */
 @Command(name = "render", mixinStandardHelpOptions = true,
+    header = "Render a coloured view of the body with its legend to PNG (no window).",
     description = {"Render the body coloured by a surveyed quantity, with legend, to a PNG image (no window).",
         "Needs a display server; on a machine without one run under xvfb-run -a -s '-screen 0 1280x1024x24'.",
         "Without --survey the survey is run first from the model's sidecar parameters (and the options given).",

@@ -16,6 +16,7 @@ import picocli.CommandLine.Spec;
  * inside {@link #call()} (via {@link ViewerWindow}), so the command line loads on a machine with no display.
  */
 @Command(name = "view", mixinStandardHelpOptions = true,
+    header = "Open the 3D viewer of the body coloured by a surveyed quantity.",
     description = {"Open the 3D viewer: the body coloured by slope, effective gravity, effective potential,",
         "dynamic height, lift-off or landing zones; orbit, zoom, pan, preset views, overlays, click to read values.",
         "Without --survey the survey runs in the background from the model's sidecar parameters.",
