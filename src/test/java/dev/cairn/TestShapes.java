@@ -201,4 +201,23 @@ public final class TestShapes {
         TriangleMesh m = new TriangleMesh(xyz, unit.tri());
         return dev.cairn.mesh.MeshInspector.inspect(m).signedVolume() < 0 ? m.flipped() : m;
     }
+
+    /**
+     * Writes {@code mesh} as a plain OBJ file (metres, 1-based facet indices; Double.toString round-trips exactly)
+     * and returns {@code file}.
+     */
+    public static java.nio.file.Path writeObj(TriangleMesh mesh, java.nio.file.Path file) throws java.io.IOException {
+        StringBuilder sb = new StringBuilder();
+        double[] v = mesh.xyz();
+        for (int i = 0; i < v.length; i += 3) {
+            sb.append("v ").append(v[i]).append(' ').append(v[i + 1]).append(' ').append(v[i + 2]).append('\n');
+        }
+        int[] t = mesh.tri();
+        for (int i = 0; i < t.length; i += 3) {
+            sb.append("f ").append(t[i] + 1).append(' ').append(t[i + 1] + 1).append(' ').append(t[i + 2] + 1)
+                .append('\n');
+        }
+        java.nio.file.Files.writeString(file, sb.toString());
+        return file;
+    }
 }

@@ -6,13 +6,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import dev.cairn.mesh.Shapes;
-import dev.cairn.mesh.TriangleMesh;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import java.util.Locale;
 import java.util.stream.Collectors;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
@@ -39,19 +37,7 @@ class CompareCommandTest {
 
     @BeforeEach
     void body() throws Exception {
-        TriangleMesh m = Shapes.ellipsoid(2, 1000, 700, 500);
-        StringBuilder sb = new StringBuilder();
-        double[] v = m.xyz();
-        for (int i = 0; i < v.length; i += 3) {
-            sb.append(String.format(Locale.ROOT, "v %.17g %.17g %.17g%n", v[i], v[i + 1], v[i + 2]));
-        }
-        int[] t = m.tri();
-        for (int i = 0; i < t.length; i += 3) {
-            sb.append("f ").append(t[i] + 1).append(' ').append(t[i + 1] + 1).append(' ').append(t[i + 2] + 1)
-                .append('\n');
-        }
-        obj = dir.resolve("lump.obj");
-        Files.writeString(obj, sb.toString());
+        obj = dev.cairn.TestShapes.writeObj(Shapes.ellipsoid(2, 1000, 700, 500), dir.resolve("lump.obj"));
     }
 
     private int run(String... args) {

@@ -49,17 +49,7 @@ class SurveyCommandTest {
     static String stdout;
 
     static void writeObj(Path file, TriangleMesh m) throws Exception {
-        StringBuilder sb = new StringBuilder("# test icosphere\n");
-        double[] x = m.xyz();
-        for (int i = 0; i < x.length; i += 3) {
-            sb.append("v ").append(x[i]).append(' ').append(x[i + 1]).append(' ').append(x[i + 2]).append('\n');
-        }
-        int[] t = m.tri();
-        for (int i = 0; i < t.length; i += 3) {
-            sb.append("f ").append(t[i] + 1).append(' ').append(t[i + 1] + 1).append(' ').append(t[i + 2] + 1)
-                .append('\n');
-        }
-        Files.writeString(file, sb.toString());
+        dev.cairn.TestShapes.writeObj(m, file);
     }
 
     static int run(StringWriter o, StringWriter e, String... args) {

@@ -5,7 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.cairn.mesh.Shapes;
-import dev.cairn.mesh.TriangleMesh;
 import dev.cairn.tables.TableFiles;
 import java.io.IOException;
 import java.io.PrintWriter;
@@ -14,7 +13,6 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
@@ -30,19 +28,7 @@ class TableCommandTest {
 
     @BeforeEach
     void writeModel() throws IOException {
-        TriangleMesh m = Shapes.icosphere(2, 1000);
-        StringBuilder sb = new StringBuilder();
-        double[] v = m.xyz();
-        for (int i = 0; i < v.length; i += 3) {
-            sb.append(String.format(Locale.ROOT, "v %.17g %.17g %.17g%n", v[i], v[i + 1], v[i + 2]));
-        }
-        int[] t = m.tri();
-        for (int i = 0; i < t.length; i += 3) {
-            sb.append("f ").append(t[i] + 1).append(' ').append(t[i + 1] + 1).append(' ').append(t[i + 2] + 1)
-                .append('\n');
-        }
-        obj = dir.resolve("ball.obj");
-        Files.writeString(obj, sb.toString());
+        obj = dev.cairn.TestShapes.writeObj(Shapes.icosphere(2, 1000), dir.resolve("ball.obj"));
     }
 
     private int run(String... args) {

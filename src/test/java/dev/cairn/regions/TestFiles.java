@@ -4,7 +4,6 @@ import dev.cairn.mesh.TriangleMesh;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Locale;
 
 /** Writes test meshes as OBJ files and small JSON files. */
 final class TestFiles {
@@ -12,19 +11,7 @@ final class TestFiles {
     }
 
     static Path obj(Path dir, String name, TriangleMesh mesh) throws IOException {
-        StringBuilder sb = new StringBuilder();
-        double[] v = mesh.xyz();
-        for (int i = 0; i < v.length; i += 3) {
-            sb.append(String.format(Locale.ROOT, "v %.17g %.17g %.17g%n", v[i], v[i + 1], v[i + 2]));
-        }
-        int[] t = mesh.tri();
-        for (int i = 0; i < t.length; i += 3) {
-            sb.append("f ").append(t[i] + 1).append(' ').append(t[i + 1] + 1).append(' ').append(t[i + 2] + 1)
-                .append('\n');
-        }
-        Path p = dir.resolve(name);
-        Files.writeString(p, sb.toString());
-        return p;
+        return dev.cairn.TestShapes.writeObj(mesh, dir.resolve(name));
     }
 
     static Path json(Path dir, String name, String content) throws IOException {

@@ -6,9 +6,7 @@ import dev.cairn.gravity.FieldSample;
 import dev.cairn.gravity.Location;
 import dev.cairn.mesh.TriangleMesh;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Locale;
 
 /** Closed-form field models for the table tests, and a small OBJ writer. */
 final class TestFields {
@@ -143,17 +141,6 @@ final class TestFields {
 
     /** Writes a mesh as OBJ (coordinates in metres). */
     static Path writeObj(TriangleMesh mesh, Path file) throws IOException {
-        StringBuilder sb = new StringBuilder();
-        double[] v = mesh.xyz();
-        for (int i = 0; i < v.length; i += 3) {
-            sb.append(String.format(Locale.ROOT, "v %.17g %.17g %.17g%n", v[i], v[i + 1], v[i + 2]));
-        }
-        int[] t = mesh.tri();
-        for (int i = 0; i < t.length; i += 3) {
-            sb.append("f ").append(t[i] + 1).append(' ').append(t[i + 1] + 1).append(' ').append(t[i + 2] + 1)
-                .append('\n');
-        }
-        Files.writeString(file, sb.toString());
-        return file;
+        return dev.cairn.TestShapes.writeObj(mesh, file);
     }
 }

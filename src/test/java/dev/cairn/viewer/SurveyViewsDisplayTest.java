@@ -5,7 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.cairn.cli.CairnMain;
 import dev.cairn.mesh.Shapes;
-import dev.cairn.mesh.TriangleMesh;
 import java.awt.image.BufferedImage;
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -29,18 +28,7 @@ class SurveyViewsDisplayTest {
 
     @Test
     void surveyWithViewsWritesTheRenderedPngs(@TempDir Path dir) throws Exception {
-        TriangleMesh m = Shapes.ellipsoid(3, 900, 600, 500);
-        Path obj = dir.resolve("egg.obj");
-        StringBuilder sb = new StringBuilder();
-        double[] x = m.xyz();
-        int[] t = m.tri();
-        for (int i = 0; i < x.length; i += 3) {
-            sb.append("v ").append(x[i]).append(' ').append(x[i + 1]).append(' ').append(x[i + 2]).append('\n');
-        }
-        for (int i = 0; i < t.length; i += 3) {
-            sb.append("f ").append(t[i] + 1).append(' ').append(t[i + 1] + 1).append(' ').append(t[i + 2] + 1).append('\n');
-        }
-        Files.writeString(obj, sb);
+        Path obj = dev.cairn.TestShapes.writeObj(Shapes.ellipsoid(3, 900, 600, 500), dir.resolve("egg.obj"));
         Path out = dir.resolve("survey");
         StringWriter err = new StringWriter();
         int code = CairnMain.execute(new PrintWriter(new StringWriter()), new PrintWriter(err), "survey", obj.toString(),

@@ -26,18 +26,7 @@ final class SyntheticSurvey {
 
     /** Writes {@code mesh} as an OBJ file (metres). */
     static Path writeObj(TriangleMesh mesh, Path file) throws IOException {
-        StringBuilder sb = new StringBuilder("# synthetic test body\n");
-        double[] xyz = mesh.xyz();
-        for (int i = 0; i < xyz.length; i += 3) {
-            sb.append("v ").append(xyz[i]).append(' ').append(xyz[i + 1]).append(' ').append(xyz[i + 2]).append('\n');
-        }
-        int[] tri = mesh.tri();
-        for (int f = 0; f < tri.length; f += 3) {
-            sb.append("f ").append(tri[f] + 1).append(' ').append(tri[f + 1] + 1).append(' ').append(tri[f + 2] + 1)
-                .append('\n');
-        }
-        Files.writeString(file, sb.toString(), StandardCharsets.UTF_8);
-        return file;
+        return dev.cairn.TestShapes.writeObj(mesh, file);
     }
 
     /** Loads the OBJ as the commands do. */
