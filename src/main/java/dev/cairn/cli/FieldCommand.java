@@ -1,6 +1,7 @@
 package dev.cairn.cli;
 
 import dev.cairn.gravity.BatchEvaluation;
+import dev.cairn.gravity.FieldCheck;
 import dev.cairn.gravity.FieldModel;
 import dev.cairn.gravity.FieldSample;
 import dev.cairn.gravity.Location;
@@ -62,12 +63,16 @@ public final class FieldCommand implements Callable<Integer> {
             err.println("cairn: warning: " + w);
         }
         double[] xyz = PointsCsv.read(points);
-        FieldModel field = fieldChoice.build(body, Math.max(1, threads), err);
+        FieldModel field = fieldChoice.build(body, xyz.length / 3, Math.max(1, threads), err);
         double[] res;
         try (ProgressBar bar = new ProgressBar("field")) {
             res = BatchEvaluation.evaluate(field, xyz, gradient, Math.max(1, threads), bar);
         }
         MasconOptions.warnTooClose(field, xyz.length / 3, err);
+        if (field.exactModel() != field && !Double.isNaN(field.tolerance())) {
+            err.println("cairn: " + FieldCheck.measure(field, xyz, FieldCheck.DEFAULT_SAMPLES, 1L,
+                Math.max(1, threads)).line());
+        }
         if (out == null) {
             PrintWriter o = spec.commandLine().getOut();
             StringBuilder sb = new StringBuilder();

@@ -65,6 +65,12 @@ public final class MasconOptions {
         return build(body, model, mascons, scheme, threads, err);
     }
 
+    /** As {@link #build(BodyModel, int, PrintWriter)} for a job of about {@code points} field points. */
+    FieldModel build(BodyModel body, long points, int threads, PrintWriter err) {
+        return model.toLowerCase(Locale.ROOT).equals("polyhedron") ? body.fieldModel(points)
+            : build(body, model, mascons, scheme, threads, err);
+    }
+
     static FieldModel build(BodyModel body, String model, int mascons, String scheme, int threads, PrintWriter err) {
         switch (model.toLowerCase(Locale.ROOT)) {
             case "polyhedron":

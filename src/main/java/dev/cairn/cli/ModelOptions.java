@@ -39,6 +39,34 @@ public final class ModelOptions {
     @Option(names = "--debug", description = "Print stack traces on errors.")
     boolean debug;
 
+    @Option(names = "--tolerance", paramLabel = "REL", description = "Relative tolerance on |g| and U of the "
+        + "hierarchical (fast) polyhedron field, 1e-13 to 1e-2 (default: 1e-10, used for bodies of 4096 facets or "
+        + "more and jobs of 1000 points or more; docs/fast-field.md).")
+    Double tolerance;
+
+    @Option(names = "--exact", description = "Evaluate the polyhedron field by the exact direct sum (O(facets) per "
+        + "point) instead of the hierarchical model.")
+    boolean exact;
+
+    /** The field settings these options ask for. */
+    public dev.cairn.gravity.FieldSettings fieldSettings() {
+        if (exact && tolerance != null) {
+            throw new InputException("--exact and --tolerance exclude each other");
+        }
+        if (exact) {
+            return dev.cairn.gravity.FieldSettings.EXACT;
+        }
+        if (tolerance == null) {
+            return dev.cairn.gravity.FieldSettings.AUTO;
+        }
+        double t = tolerance;
+        if (!(t >= dev.cairn.gravity.HierarchicalField.MIN_TOLERANCE
+            && t <= dev.cairn.gravity.HierarchicalField.MAX_TOLERANCE)) {
+            throw new InputException("--tolerance: " + t + " is outside 1e-13 to 1e-2");
+        }
+        return dev.cairn.gravity.FieldSettings.tolerance(t);
+    }
+
     /** The bundled demo body: {@code $CAIRN_HOME/shape-models/} (set by tools/cairn), else ./shape-models/. */
     public static Path demoModel() {
         String home = System.getProperty("cairn.home");
@@ -72,6 +100,9 @@ public final class ModelOptions {
 
     /** Loads the model. */
     public BodyModel load(SpinOptions spin) {
-        return ModelLoader.load(modelPath(), request(spin));
+        dev.cairn.gravity.FieldSettings settings = fieldSettings();
+        BodyModel body = ModelLoader.load(modelPath(), request(spin));
+        body.useField(settings);
+        return body;
     }
 }

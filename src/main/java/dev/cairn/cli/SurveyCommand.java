@@ -158,6 +158,10 @@ public final class SurveyCommand implements Callable<Integer> {
         o.printf(Locale.ROOT, "Body         %s (%s), %d facets%n", t.name(), t.source(), r.facetCount());
         o.printf(Locale.ROOT, "Field        %s, GM %.6g m^3/s^2, equivalent radius %.6g m%n", t.field().describe(),
             t.field().gm(), t.equivalentRadius());
+        if (r.fieldCheck() != null && r.fieldCheck().samples() > 0) {
+            o.printf(Locale.ROOT, "Field check  max relative error against the exact sum on %d sampled facets: |g| %.2e, "
+                + "U %.2e%n", r.fieldCheck().samples(), r.fieldCheck().maxRelG(), r.fieldCheck().maxRelU());
+        }
         o.printf(Locale.ROOT, "Spin         %s, pole [%.4f, %.4f, %.4f]%n", Double.isInfinite(p) ? "none"
             : String.format(Locale.ROOT, "period %.6g s (%.4g h)", p, p / 3600), ax[0], ax[1], ax[2]);
         range(o, "Slope", r.slopeDeg(), "deg");

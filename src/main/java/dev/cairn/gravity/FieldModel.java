@@ -17,4 +17,18 @@ public interface FieldModel {
 
     /** One-line human description, e.g. "constant-density polyhedron, 20000 facets, 2100 kg/m^3". */
     String describe();
+
+    /**
+     * The exact model this one approximates to a stated tolerance (e.g. the direct sum behind
+     * {@link HierarchicalField}), for sampled accuracy checks; the model itself when it is exact or has no exact
+     * counterpart.
+     */
+    default FieldModel exactModel() {
+        return this;
+    }
+
+    /** The relative tolerance this model is built for (NaN when it is exact or states none). */
+    default double tolerance() {
+        return Double.NaN;
+    }
 }

@@ -30,6 +30,8 @@ public final class BodyModel {
     private final dev.cairn.regions.RegionBody regions;
     private MassProperties massProperties;
     private PolyhedronField field;
+    private dev.cairn.gravity.FieldSettings fieldSettings = dev.cairn.gravity.FieldSettings.AUTO;
+    private final java.util.Map<Double, dev.cairn.gravity.HierarchicalField> fastFields = new java.util.HashMap<>();
 
     BodyModel(Path source, TriangleMesh mesh, EdgeTable edges, MeshReport report, List<String> warnings,
               String lengthUnit, double density, SpinState spin, ModelSidecar sidecar) {
@@ -161,10 +163,34 @@ public final class BodyModel {
      * @throws InputException when the field cannot be built (surface not fit, no density)
      */
     public FieldModel fieldModel() {
+        return fieldModel(Long.MAX_VALUE);
+    }
+
+    /**
+     * As {@link #fieldModel()} for a job of about {@code points} field points: with the automatic choice of
+     * {@link #fieldSettings()}, the hierarchical model only where it pays (large body, many points).
+     */
+    public synchronized FieldModel fieldModel(long points) {
         if (regions != null) {
-            return regions.superpositionField();
+            return regions.superpositionField(fieldSettings, points);
         }
-        return polyhedronField();
+        PolyhedronField exact = polyhedronField();
+        if (!fieldSettings.hierarchical(mesh.facetCount(), points)) {
+            return exact;
+        }
+        double tol = fieldSettings.effectiveTolerance();
+        return fastFields.computeIfAbsent(tol, t -> new dev.cairn.gravity.HierarchicalField(mesh, exact, t,
+            dev.cairn.util.ParallelChunks.defaultThreads()));
+    }
+
+    /** How the polyhedron field is evaluated (exact, or hierarchical at a tolerance; default automatic). */
+    public synchronized dev.cairn.gravity.FieldSettings fieldSettings() {
+        return fieldSettings;
+    }
+
+    /** Sets how {@link #fieldModel()} evaluates the polyhedron field. */
+    public synchronized void useField(dev.cairn.gravity.FieldSettings settings) {
+        this.fieldSettings = java.util.Objects.requireNonNull(settings);
     }
 
     /** Throws a one-line {@link InputException} when the surface is not closed, consistent and non-degenerate. */

@@ -39,6 +39,7 @@ public final class RegionBody {
     private final SurfaceQuery[] queries;
     private MassProperties massProperties;
     private FieldModel field;
+    private final java.util.Map<String, FieldModel> fastFields = new java.util.HashMap<>();
 
     private final BodyDescription description;
     private final String lengthUnit;
@@ -110,7 +111,44 @@ public final class RegionBody {
      *
      * @throws InputException when a region has a density gradient (only the mascon route can represent it)
      */
-    public synchronized FieldModel superpositionField() {
+    public FieldModel superpositionField() {
+        return superpositionField(dev.cairn.gravity.FieldSettings.EXACT, 0);
+    }
+
+    /**
+     * The polyhedron route with each region's polyhedron evaluated as {@code settings} says for a job of
+     * {@code points} points (the hierarchical model per region where it pays).
+     */
+    public synchronized FieldModel superpositionField(dev.cairn.gravity.FieldSettings settings, long points) {
+        FieldModel exactSum = exactSuperposition();
+        boolean any = false;
+        for (Region r : regions) {
+            any |= settings.hierarchical(r.mesh().facetCount(), points);
+        }
+        if (!any) {
+            return exactSum;
+        }
+        String key = settings.toString();
+        if (fastFields.containsKey(key)) {
+            return fastFields.get(key);
+        }
+        List<FieldModel> parts = new ArrayList<>();
+        SuperpositionField exact = (SuperpositionField) exactSum;
+        for (int i = 0; i < regions.size(); i++) {
+            Region r = regions.get(i);
+            dev.cairn.gravity.PolyhedronField pf = (dev.cairn.gravity.PolyhedronField) exact.part(i);
+            parts.add(settings.hierarchical(r.mesh().facetCount(), points)
+                ? new dev.cairn.gravity.HierarchicalField(r.mesh(), pf, settings.effectiveTolerance(),
+                    dev.cairn.util.ParallelChunks.defaultThreads())
+                : pf);
+        }
+        FieldModel f = new SuperpositionField(parts, exact.describe() + String.format(Locale.ROOT,
+            "; hierarchical where it pays, tolerance %.1e per region", settings.effectiveTolerance()));
+        fastFields.put(key, f);
+        return f;
+    }
+
+    private FieldModel exactSuperposition() {
         if (field == null) {
             if (hasGradient()) {
                 throw new InputException(source + ": a density gradient (density_gradient_kg_m3_per_m) is only "

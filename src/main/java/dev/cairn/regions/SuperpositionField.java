@@ -25,6 +25,11 @@ public final class SuperpositionField implements FieldModel {
         this.description = description;
     }
 
+    /** Term {@code i} (0 = the outer shape). */
+    public FieldModel part(int i) {
+        return parts[i];
+    }
+
     @Override
     public double gm() {
         double s = 0;
@@ -37,6 +42,30 @@ public final class SuperpositionField implements FieldModel {
     @Override
     public String describe() {
         return description;
+    }
+
+    /** The sum of the parts' exact models (itself when every part is exact). */
+    @Override
+    public FieldModel exactModel() {
+        java.util.List<FieldModel> exact = new java.util.ArrayList<>();
+        boolean same = true;
+        for (FieldModel p : parts) {
+            exact.add(p.exactModel());
+            same &= p.exactModel() == p;
+        }
+        return same ? this : new SuperpositionField(exact, description + " [exact parts]");
+    }
+
+    /** The largest tolerance of the parts (NaN when all are exact). */
+    @Override
+    public double tolerance() {
+        double t = Double.NaN;
+        for (FieldModel p : parts) {
+            if (!Double.isNaN(p.tolerance())) {
+                t = Double.isNaN(t) ? p.tolerance() : Math.max(t, p.tolerance());
+            }
+        }
+        return t;
     }
 
     @Override

@@ -108,6 +108,9 @@ public final class Survey {
         double[] samples = BatchEvaluation.evaluate(target.field(), w.centroid, false, params.threads(),
             offset(progress, 0, total));
         w.derive(samples);
+        // the measured accuracy of an approximate field (hierarchical) against the exact sum on sampled centroids
+        w.fieldCheck = dev.cairn.gravity.FieldCheck.measure(target.field(), w.centroid,
+            dev.cairn.gravity.FieldCheck.DEFAULT_SAMPLES, 20261202L, params.threads());
         long t1 = System.nanoTime();
         // Stage 2: discs, aim facets, zones.
         w.discs(offset(progress, nf, total), nf / (double) discUnits);
@@ -138,6 +141,8 @@ public final class Survey {
         final int nf;
         final double[] centroid;
         final double[] normal;
+        /** Measured accuracy of the field model on sampled centroids (set after stage 1). */
+        dev.cairn.gravity.FieldCheck fieldCheck;
         final double[] area;
         final int[] neighbour;
         final double[] lat;

@@ -197,6 +197,7 @@ public final class SurveyOutputs {
         j.put("facets", r.facets);
         j.put("vertices", t.mesh().vertexCount());
         j.put("field_model", t.field().describe());
+        j.put("field_accuracy", r.fieldCheck() == null ? null : r.fieldCheck().json());
         Map<String, Object> par = new LinkedHashMap<>();
         par.put("density_kg_m3", Double.isNaN(t.density()) ? null : t.density());
         par.put("gm_m3_s2", t.field().gm());

@@ -47,9 +47,11 @@ public final class SurveyResult {
     final double seconds;
     final double[] stageSeconds;
     final List<String> notes;
+    final dev.cairn.gravity.FieldCheck fieldCheck;
 
     SurveyResult(Survey.Work w, List<LandingZone> zones, List<HoverPoint> hovering, double[] hoverAltitudes,
                  double seconds, double[] stageSeconds, List<String> notes) {
+        this.fieldCheck = w.fieldCheck;
         this.target = w.target;
         this.parameters = w.params;
         this.facets = w.nf;
@@ -85,6 +87,11 @@ public final class SurveyResult {
         this.seconds = seconds;
         this.stageSeconds = stageSeconds.clone();
         this.notes = List.copyOf(notes);
+    }
+
+    /** Which field model produced the survey and its measured accuracy against the exact sum on sampled facets. */
+    public dev.cairn.gravity.FieldCheck fieldCheck() {
+        return fieldCheck;
     }
 
     /** Remarks on the resolution of the results (e.g. a zone radius smaller than the facets). */
