@@ -18,15 +18,19 @@ import dev.cairn.util.ProgressListener;
  *
  * <p>Truncation: with all mass within a = R_B of c, the remainder of the potential is below
  * GM/(r − a)·(a/r)^{P+1} (Greengard, L. &amp; Rokhlin, V. (1987) J. Comput. Phys. 73:325, Theorem 3.2 for one
- * cluster); at r ≥ 12 a and P = 16 this is below 5e-19 of GM/r, and the derivatives add factors of order P. Far
+ * cluster); at r ≥ 8 a and P = 20 this is below 1.2e-19 of GM/r, and the derivatives add factors of order P. Far
  * points are evaluated with scaled harmonics (no power of r over- or underflows), so U stays positive and
  * relative accuracy holds out to r ~ 1e150 m. Conventions: U &gt; 0, g = ∇U, SI, model frame.
  */
 public final class BodyExpansion {
     /** Degree of the expansion the exact field uses. */
-    public static final int DEGREE = 16;
-    /** The exact field uses the expansion at and beyond this many Brillouin radii (about the centre of mass). */
-    public static final double SWITCH_RADII = 12.0;
+    public static final int DEGREE = 20;
+    /**
+     * The exact field uses the expansion at and beyond this many Brillouin radii (about the centre of mass): there
+     * its truncation is below 1e-19 of GM/r, while the direct sum's round-off already reaches ~1e-12 (measured on a
+     * lumpy 5,120-facet body at 9 radii; it grows as r², docs/fast-field.md).
+     */
+    public static final double SWITCH_RADII = 8.0;
 
     private final double gRho;
     private final double cx;

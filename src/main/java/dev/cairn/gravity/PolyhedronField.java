@@ -72,6 +72,14 @@ public final class PolyhedronField implements FieldModel {
      * log argument x = 2e/(a+b−e) is below 1/255 and ln(1 + x) is summed as a series (far-field accuracy).
      */
     private final double farDistance2;
+    /** The whole body's exterior expansion, built on the first far point ({@link BodyExpansion#SWITCH_RADII}). */
+    private volatile BodyExpansion expansion;
+    private final TriangleMesh mesh;
+    /** Centre of mass relative to (ox, oy, oz), m, and the squared radius about it where the expansion takes over. */
+    private final double comX;
+    private final double comY;
+    private final double comZ;
+    private final double farSwitch2;
 
     /**
      * @param mesh    closed, consistently outward-oriented mesh without zero-area facets, metres (check it with
@@ -85,6 +93,7 @@ public final class PolyhedronField implements FieldModel {
 
     /** As {@link #PolyhedronField(TriangleMesh, double)} with an edge table already built for {@code mesh}. */
     public PolyhedronField(TriangleMesh mesh, EdgeTable edges, double density) {
+        this.mesh = mesh;
         this.density = density;
         this.vertexCount = mesh.vertexCount();
         this.facetCount = mesh.facetCount();
@@ -111,6 +120,9 @@ public final class PolyhedronField implements FieldModel {
         double[] normals = new double[3 * facetCount];
         fn = new double[4 * facetCount];
         double vol6 = 0;
+        double mx = 0;
+        double my = 0;
+        double mz = 0;
         for (int f = 0; f < facetCount; f++) {
             int a = 3 * fv[3 * f];
             int b = 3 * fv[3 * f + 1];
@@ -124,7 +136,11 @@ public final class PolyhedronField implements FieldModel {
             double nx = uy * vz - uz * vy;
             double ny = uz * vx - ux * vz;
             double nz = ux * vy - uy * vx;
-            vol6 += pv[a] * nx + pv[a + 1] * ny + pv[a + 2] * nz;
+            double t6 = pv[a] * nx + pv[a + 1] * ny + pv[a + 2] * nz;
+            vol6 += t6;
+            mx += t6 * (pv[a] + pv[b] + pv[c]);
+            my += t6 * (pv[a + 1] + pv[b + 1] + pv[c + 1]);
+            mz += t6 * (pv[a + 2] + pv[b + 2] + pv[c + 2]);
             double len = Math.sqrt(nx * nx + ny * ny + nz * nz);
             if (!(len > 0)) {
                 throw new IllegalArgumentException("facet " + f + " has zero area");
@@ -174,6 +190,19 @@ public final class PolyhedronField implements FieldModel {
             emax = Math.max(emax, l);
         }
         farDistance2 = (rmax + 256 * emax) * (rmax + 256 * emax);
+        // centre of mass by signed tetrahedra (Dobrovolskis 1996) and the Brillouin radius about it
+        comX = mx / (4 * vol6);
+        comY = my / (4 * vol6);
+        comZ = mz / (4 * vol6);
+        double rb = 0;
+        for (int i = 0; i < pv.length; i += 3) {
+            double dx = pv[i] - comX;
+            double dy = pv[i + 1] - comY;
+            double dz = pv[i + 2] - comZ;
+            rb = Math.max(rb, Math.sqrt(dx * dx + dy * dy + dz * dz));
+        }
+        double sw = BodyExpansion.SWITCH_RADII * rb;
+        farSwitch2 = sw * sw;
     }
 
     private static void addEdgeDyad(double[] sym, double[] normals, int f, double dx, double dy, double dz) {
@@ -240,16 +269,48 @@ public final class PolyhedronField implements FieldModel {
         return new Evaluator();
     }
 
+    /**
+     * The whole body's exterior expansion (exact to rounding at and beyond {@link BodyExpansion#SWITCH_RADII}
+     * Brillouin radii), built once on first use.
+     */
+    public BodyExpansion expansion() {
+        BodyExpansion e = expansion;
+        if (e == null) {
+            synchronized (this) {
+                e = expansion;
+                if (e == null) {
+                    e = new BodyExpansion(mesh, density, dev.cairn.util.ParallelChunks.defaultThreads());
+                    expansion = e;
+                }
+            }
+        }
+        return e;
+    }
+
+
     /** Per-thread scratch: vertex offsets and distances for the current field point. */
     private final class Evaluator implements FieldEvaluator {
         /** Per vertex: offset x, y, z from the field point and its length, interleaved for locality. */
         private final double[] r = new double[4 * vertexCount];
+        private double[] jr;
+        private double[] ji;
 
         @Override
         public void evaluate(double x, double y, double z, boolean gradient, double[] out, int o) {
             final double px = x - ox;
             final double py = y - oy;
             final double pz = z - oz;
+            double qx = px - comX;
+            double qy = py - comY;
+            double qz = pz - comZ;
+            if (qx * qx + qy * qy + qz * qz >= farSwitch2) { // also for an overflowing (infinite) distance
+                if (jr == null) {
+                    jr = new double[SolidHarmonics.size(BodyExpansion.DEGREE + 2)];
+                    ji = new double[jr.length];
+                }
+                expansion().evaluate(x, y, z, gradient, out, o, jr, ji);
+                return;
+            }
             final boolean far = px * px + py * py + pz * pz > farDistance2; // same for every edge: no misprediction
             final double[] r = this.r;
             final double[] pv = PolyhedronField.this.pv;

@@ -44,6 +44,67 @@ class MacCullaghFarFieldTest {
         check("ellipsoid 3:2:1 polyhedron (rotated, translated)", e, 5.0, new double[] {3, 6, 12, 24});
     }
 
+    /**
+     * From 1e4 (centrally symmetric body, residual O(r⁻⁴) below 1e-16 there) or 1e5 (asymmetric, O(r⁻³)) to 1e9
+     * Brillouin radii, U and g of the exact field (its exterior expansion there) and of the hierarchical field equal
+     * MacCullagh's U and its gradient to 1e-13 relative, and U stays positive. The gradient of the inertia term,
+     * U₂ = G(T − 3 r̂ᵀIr̂)/(2r³), is g₂ = G[(15 q/(2r⁷) − 3T/(2r⁵)) x − 3 I x/r⁵], q = xᵀIx (differentiated here).
+     */
+    @Test
+    void extremeDistancesMatchMacCullaghToRounding() {
+        TriangleMesh e = Shapes.ellipsoid(3, 3, 2, 1).transformed(TestShapes.rotation(-0.3, 0.2, 1, 0.6), 1.0,
+            new double[] {-5.0, 2.0, 8.0});
+        TriangleMesh l = TestShapes.lShape().transformed(TestShapes.rotation(1, 2, -0.5, 0.9), 1.0,
+            new double[] {12.0, -7.0, 3.5});
+        extreme(e, 1e4);
+        extreme(l, 1e5);
+    }
+
+    private static void extreme(TriangleMesh mesh, double from) {
+        MassProperties mp = MassPropertiesCalculator.compute(mesh, RHO);
+        PolyhedronField exact = new PolyhedronField(mesh, RHO);
+        FieldEvaluator[] evs = {exact.newEvaluator(), new HierarchicalField(mesh, exact, 1e-10, 1).newEvaluator()};
+        double gm = mp.gm();
+        double[] c = mp.centerOfMass();
+        double[] in = mp.inertia();
+        double trace = in[0] + in[4] + in[8];
+        double[] s = new double[FieldSample.SIZE];
+        double worst = 0;
+        for (double k = from; k <= 1e9; k *= 10) {
+            double r = k * mp.brillouinRadius();
+            for (double[] d : DIRECTIONS) {
+                double[] x = {r * d[0], r * d[1], r * d[2]};
+                double[] ix = new double[3];
+                double q = 0;
+                for (int i = 0; i < 3; i++) {
+                    for (int j = 0; j < 3; j++) {
+                        ix[i] += in[3 * i + j] * x[j];
+                    }
+                    q += x[i] * ix[i];
+                }
+                double r2 = r * r;
+                double r5 = r2 * r2 * r;
+                double u = gm / r + Constants.G * (trace - 3 * q / r2) / (2 * r * r2);
+                double[] g = new double[3];
+                for (int i = 0; i < 3; i++) {
+                    g[i] = -gm * x[i] / (r2 * r) + Constants.G * ((15 * q / (2 * r5 * r2) - 3 * trace / (2 * r5)) * x[i]
+                        - 3 * ix[i] / r5);
+                }
+                double gn = Math.sqrt(g[0] * g[0] + g[1] * g[1] + g[2] * g[2]);
+                for (FieldEvaluator ev : evs) {
+                    ev.evaluate(c[0] + x[0], c[1] + x[1], c[2] + x[2], false, s, 0);
+                    double du = Math.abs(s[FieldSample.U] - u) / u;
+                    double dg = Math.sqrt(Math.pow(s[FieldSample.AX] - g[0], 2) + Math.pow(s[FieldSample.AY] - g[1], 2)
+                        + Math.pow(s[FieldSample.AZ] - g[2], 2)) / gn;
+                    worst = Math.max(worst, Math.max(du, dg));
+                    assertTrue(s[FieldSample.U] > 0, "U > 0 at " + k + " R_B");
+                    assertTrue(du <= 1e-13 && dg <= 1e-13, "at " + k + " R_B: U " + du + ", g " + dg);
+                }
+            }
+        }
+        TestShapes.achieved("MacCullagh from " + from + " to 1e9 R_B (exact and hierarchical), max rel. error", worst);
+    }
+
     private static void check(String what, TriangleMesh mesh, double expectedOrder, double[] distances) {
         MassProperties mp = MassPropertiesCalculator.compute(mesh, RHO);
         FieldEvaluator ev = new PolyhedronField(mesh, RHO).newEvaluator();
