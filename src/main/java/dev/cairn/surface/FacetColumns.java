@@ -80,7 +80,11 @@ public final class FacetColumns {
         new Column("roughness_deg", false, "RMS normal spread in the facet's zone disc, deg (NaN if the facet is "
             + "not safe)", (r, f) -> r.roughness[f]),
         new Column("disc_max_slope_deg", false, "largest slope in the facet's zone disc, deg (NaN if the facet is "
-            + "not safe)", (r, f) -> r.discMaxSlope[f]));
+            + "not safe)", (r, f) -> r.discMaxSlope[f]),
+        new Column("site", true, "rank of the landing site whose disc holds the facet (1 = best), 0 = none; sites "
+            + "share no facet", (r, f) -> r.site[f]),
+        new Column("map_layer", true, "layer of the lat/lon maps that shows the facet: 1 = outermost along the ray "
+            + "from the centre of mass, k = below k - 1 other crossings", (r, f) -> r.mapLayer[f]));
 
     /** The header line of facets.csv (no trailing newline). */
     public static String csvHeader() {
