@@ -35,7 +35,7 @@ public final class SurveyMaps {
     private static final int LEFT = 70;
     private static final int TOP = 44;
     private static final int RIGHT = 130;
-    private static final int BOTTOM = 70;
+    private static final int BOTTOM = 84;
     /** Size of a map image, pixels. */
     public static final int MAP_WIDTH = LEFT + GRID_W + RIGHT;
     public static final int MAP_HEIGHT = TOP + GRID_H + BOTTOM;
@@ -268,8 +268,8 @@ public final class SurveyMaps {
             int hidden = markSites(g, r, layer);
             g.setColor(Color.BLACK);
             g.drawString("O n = site n", bx - 8, TOP + GRID_H + 34);
-            g.drawString(hidden == 0 ? "(aim point)" : hidden + " of top " + MARKED_SITES + " elsewhere", bx - 8,
-                TOP + GRID_H + 48);
+            g.drawString(hidden == 0 ? "(aim point)" : hidden + (layer == 1 ? " on layer maps" : " on other layers"),
+                bx - 8, TOP + GRID_H + 48);
         }
         hiddenLegend(g, r, raster, layer, bx, bw);
         g.dispose();
@@ -306,7 +306,7 @@ public final class SurveyMaps {
         if (raster.layers() <= layer) {
             return;
         }
-        int y = TOP + GRID_H + 56;
+        int y = TOP + GRID_H + 55;
         g.setColor(Color.WHITE);
         g.fillRect(bx, y, bw, 10);
         g.setColor(HIDDEN);
@@ -331,12 +331,15 @@ public final class SurveyMaps {
             below += r.mapLayer[f] > layer ? r.area[f] : 0;
             here += r.mapLayer[f] == layer ? r.area[f] : 0;
         }
-        String s = subtitle(r) + (layer == 1 ? "; outermost surface" : "; layer " + layer + " from outside ("
-            + pct(here / total) + " of area)") + " along rays from the centre of mass, lat/lon about the spin pole";
-        if (below > 0) {
-            s += "; " + pct(below / total) + " of area hidden below (hatched; see layer maps)";
+        String s = subtitle(r);
+        if (layer > 1) {
+            s += "; layer " + layer + " from outside (" + pct(here / total) + " of area)";
+        } else if (below == 0) {
+            return s + "; lat/lon about the spin pole from the centre of mass";
+        } else {
+            s += "; outermost surface";
         }
-        return s;
+        return s + (below > 0 ? "; " + pct(below / total) + " of area hidden below (hatched)" : "");
     }
 
     private static String pct(double f) {

@@ -36,6 +36,66 @@ final class TestBoxes {
         return b.mesh();
     }
 
+    /**
+     * An invented C-shaped body: a rectangular section (radii r1..r2, heights −hz..hz) swept about the z axis over
+     * φ ∈ [−φ0, φ0] in {@code steps} steps, each side of the section divided into {@code m}, with flat end caps; then
+     * every vertex moved by a seeded amount of up to {@code jitter} metres along each axis (so that no ray from the
+     * centre of mass runs exactly through an edge by symmetry). Closed and outward. With φ0 = 135° the centre of mass
+     * lies in the hole, outside the body.
+     */
+    static TriangleMesh cShape(double r1, double r2, double hz, double phi0Deg, int steps, int m, double jitter,
+                               long seed) {
+        Builder b = new Builder();
+        double phi0 = Math.toRadians(phi0Deg);
+        for (int k = 0; k < steps; k++) {
+            double pa = -phi0 + 2 * phi0 * k / steps;
+            double pb = -phi0 + 2 * phi0 * (k + 1) / steps;
+            double pm = 0.5 * (pa + pb);
+            for (int i = 0; i < m; i++) {
+                // outer wall (outward +radial), inner wall (−radial), top (+z), bottom (−z)
+                b.quadOut(new double[][] {c(pa, r2, hz, m, i), c(pb, r2, hz, m, i), c(pb, r2, hz, m, i + 1),
+                    c(pa, r2, hz, m, i + 1)}, new double[] {Math.cos(pm), Math.sin(pm), 0});
+                b.quadOut(new double[][] {c(pa, r1, hz, m, i), c(pb, r1, hz, m, i), c(pb, r1, hz, m, i + 1),
+                    c(pa, r1, hz, m, i + 1)}, new double[] {-Math.cos(pm), -Math.sin(pm), 0});
+                b.quadOut(new double[][] {t(pa, r1, r2, hz, m, i, m), t(pb, r1, r2, hz, m, i, m),
+                    t(pb, r1, r2, hz, m, i + 1, m), t(pa, r1, r2, hz, m, i + 1, m)}, new double[] {0, 0, 1});
+                b.quadOut(new double[][] {t(pa, r1, r2, hz, m, i, 0), t(pb, r1, r2, hz, m, i, 0),
+                    t(pb, r1, r2, hz, m, i + 1, 0), t(pa, r1, r2, hz, m, i + 1, 0)}, new double[] {0, 0, -1});
+            }
+        }
+        for (int end = -1; end <= 1; end += 2) {
+            double p = end * phi0;
+            double[] out = {-Math.sin(p) * end, Math.cos(p) * end, 0}; // end · (unit vector of increasing φ)
+            for (int i = 0; i < m; i++) {
+                for (int j = 0; j < m; j++) {
+                    b.quadOut(new double[][] {t(p, r1, r2, hz, m, i, j), t(p, r1, r2, hz, m, i + 1, j),
+                        t(p, r1, r2, hz, m, i + 1, j + 1), t(p, r1, r2, hz, m, i, j + 1)}, out);
+                }
+            }
+        }
+        TriangleMesh mesh = b.mesh();
+        double[] xyz = mesh.xyz().clone();
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(seed);
+        for (int i = 0; i < xyz.length; i++) {
+            xyz[i] += rnd.nextDouble(-jitter, jitter);
+        }
+        return new TriangleMesh(xyz, mesh.tri());
+    }
+
+    /** Point of a wall at radius r, height step j of m. */
+    private static double[] c(double phi, double r, double hz, int m, int j) {
+        return point(phi, r, -hz + 2 * hz * j / m);
+    }
+
+    /** Point of the section grid: radius step i, height step j (of m each). */
+    private static double[] t(double phi, double r1, double r2, double hz, int m, int i, int j) {
+        return point(phi, r1 + (r2 - r1) * i / m, -hz + 2 * hz * j / m);
+    }
+
+    private static double[] point(double phi, double r, double z) {
+        return new double[] {r * Math.cos(phi), r * Math.sin(phi), z};
+    }
+
     /** Two meshes side by side in one (facets of {@code a} first). */
     static TriangleMesh union(TriangleMesh a, TriangleMesh b) {
         double[] xyz = new double[a.xyz().length + b.xyz().length];
@@ -77,6 +137,16 @@ final class TestBoxes {
                 tri(q[0], q[1], q[2]);
                 tri(q[0], q[2], q[3]);
             }
+        }
+
+        /** Quad as two triangles, oriented so that their normals point along {@code out}. */
+        void quadOut(double[][] q, double[] out) {
+            double[] e1 = {q[1][0] - q[0][0], q[1][1] - q[0][1], q[1][2] - q[0][2]};
+            double[] e2 = {q[2][0] - q[0][0], q[2][1] - q[0][1], q[2][2] - q[0][2]};
+            double nx = e1[1] * e2[2] - e1[2] * e2[1];
+            double ny = e1[2] * e2[0] - e1[0] * e2[2];
+            double nz = e1[0] * e2[1] - e1[1] * e2[0];
+            quad(q, nx * out[0] + ny * out[1] + nz * out[2] < 0);
         }
 
         TriangleMesh mesh() {
