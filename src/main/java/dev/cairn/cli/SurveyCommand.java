@@ -192,11 +192,11 @@ public final class SurveyCommand implements Callable<Integer> {
         o.printf(Locale.ROOT, "Area         %.1f%% below %.4g deg slope, %.2f%% lift-off%n", 100 * below / tot,
             r.parameters().maxSlopeDeg(), 100 * la / tot);
         double rs = r.parameters().siteRadius();
-        o.printf(Locale.ROOT, "Sites        %d (non-overlapping discs of radius %.4g m about aim points, best first)%n",
-            r.sites().size(), rs);
+        o.printf(Locale.ROOT, "Sites        %d (non-overlapping discs of radius %.4g m about aim points, best first; "
+            + "all in summary.json)%n", r.sites().size(), rs);
         for (LandingSite x : r.sites().subList(0, Math.min(10, r.sites().size()))) {
-            o.printf(Locale.ROOT, "  #%-3d score %.3f  lat %6.1f lon %7.1f  slope max %4.1f mean %4.1f deg  rough %4.1f"
-                + " deg  dh %.3g m  g_eff %.4g m/s^2  escape %.3g m/s  safe %.0f%%  zone %d%s%n", x.rank(), x.score(),
+            o.printf(Locale.ROOT, "  #%-3d score %.3f  lat %6.1f lon %7.1f  slope max/mean %.1f/%.1f deg  rough %.1f deg"
+                + "  dh %.3g m  g_eff %.4g m/s^2  esc %.3g m/s  safe %.0f%%  zone %d%s%n", x.rank(), x.score(),
                 x.latDeg(), x.lonDeg(), x.maxSlopeDeg(), x.meanSlopeDeg(), x.roughnessDeg(),
                 x.dynamicHeightRangeM(), x.meanGravityEff(), x.meanEscapeSpeed(), 100 * x.safeAreaFraction(),
                 x.zone(), r.mapLayer()[x.facet()] > 1 ? "  (map layer " + r.mapLayer()[x.facet()] + ")" : "");

@@ -35,20 +35,27 @@ import java.util.List;
  * </ul>
  *
  * <p><b>Landing zones.</b> A facet is <i>safe</i> when its slope is below the limit (so it does not lift off). Its
- * <i>disc</i> is the set of facets reached from it across shared edges whose centroid or some vertex lies within the
- * zone radius R of its centroid (adjacency-based region growing: O(facets in the disc) per facet, never O(F²)). The
- * disc's roughness is the area-weighted RMS angle between its facet normals and their area-weighted mean normal. An
- * <i>aim facet</i> is a safe facet whose whole disc is safe and whose roughness is at most the limit. A zone is a
- * connected set (across shared edges) of aim facets; its footprint is the union of their discs. Zone score in
- * [0, 1] (weights chosen, no source):
+ * <i>disc</i> is the set of facets with any point within the zone radius R of its centroid (exact point-to-triangle
+ * distance, Ericson 2005 §5.1.5, from a grid of facet bounding boxes: complete, including ground that is not
+ * connected to the facet inside the ball, such as the far wall of a crack or an overhang; O(facets near the ball) per
+ * facet, never O(F²)). The disc's roughness is the area-weighted RMS angle between its facet normals and their
+ * area-weighted mean normal. An <i>aim facet</i> is a safe facet whose whole disc is safe and whose roughness is at
+ * most the limit: no facet at or above the slope limit has any point within R of its centroid. A zone is a connected
+ * set (across shared edges) of aim facets; its footprint is the union of their discs. Zone score in [0, 1] (weights
+ * chosen, no source):
  * <pre>
  *   score = 0.4 (1 − discSlope/θmax) + 0.3 (1 − roughness/ρmax) + 0.2 (1 − min(1, grade/tan θmax))
  *         + 0.1 min(1, aimArea/(πR²))
  * </pre>
  * where, as area-weighted means over the zone's aim facets, discSlope is the largest slope in the disc (slope margin
  * of a landing aimed there), roughness the disc roughness and grade (range of dynamic height in the disc)/(2R)
- * (flatness of the effective potential); the last term rewards room to aim. The facet with the best individual score (same formula, disc values,
- * without the area term) is the suggested aim point.
+ * (flatness of the effective potential); the last term rewards room to aim. The facet with the best individual score
+ * (same formula, disc values, without the area term) is the suggested aim point.
+ *
+ * <p><b>Landing sites.</b> Discrete candidates: the disc of the site radius R_s (default R) about an aim facet's
+ * centroid, scored by the same weights on that disc, {@code 0.4 (1 − min(1, maxSlope/θmax)) + 0.3 (1 − min(1,
+ * roughness/ρmax)) + 0.2 (1 − min(1, grade/tan θmax)) + 0.1 safeAreaFraction}, and chosen greedily (best score first,
+ * ties by lower facet index) so that no two overlap: centres at least 2 R_s apart and no facet in two sites.
  *
  * <p><b>Hovering.</b> Up to {@link #HOVER_CANDIDATES} surface facets with the least |a_eff|, at least
  * max(R, 0.05·R_eq) apart, are re-evaluated at each hover altitude along their outward normal (points that fall
