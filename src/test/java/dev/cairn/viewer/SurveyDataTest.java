@@ -73,6 +73,11 @@ class SurveyDataTest {
         assertArrayEquals(new int[] {1, 2}, s.sites().get(0).facets());
         assertEquals(2.0, s.sites().get(0).centroid()[0], 0.0, "mean of the facet centroids");
         assertArrayEquals(new int[] {4}, s.sites().get(1).facets());
+        FacetColouring.Result c = FacetColouring.colour(s, n, Quantity.SITES, ColourLimits.AUTO);
+        assertEquals(List.of("no site", "site 1", "site 2"),
+            c.legend().categories().stream().map(Legend.Swatch::label).toList());
+        assertEquals(c.argb()[1], c.argb()[2], "one colour per site");
+        assertTrue(c.argb()[1] != c.argb()[4] && c.argb()[0] != c.argb()[1]);
     }
 
     @Test
