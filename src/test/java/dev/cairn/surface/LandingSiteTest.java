@@ -43,7 +43,7 @@ class LandingSiteTest {
         target = SurveyTestBodies.target("lumpy", mesh, DENSITY,
             new SpinState(2.7 * 3600, new double[] {0.25, -0.15, 1}));
         res = SurveyTestBodies.survey(target, SurveyParameters.defaults().withMaxSlope(MAX_SLOPE)
-            .withZoneRadius(ZONE_R).withHoverAltitudes(new double[] {0}));
+            .withZoneRadius(ZONE_R).withHoverAltitudes(new double[] {0}).withThreads(2));
         boolean[] aim = res.aimFacets();
         List<Integer> a = new ArrayList<>();
         for (int f = 0; f < aim.length; f++) {
@@ -196,6 +196,19 @@ class LandingSiteTest {
         }
         System.out.println("LandingSiteTest: " + sites.size() + " sites of radius " + rs + " m from "
             + aimList.length + " aim facets, best score " + sites.get(0).score());
+    }
+
+    @Test
+    void sitesAndLayersDoNotDependOnTheThreadCount() {
+        SurveyResult one = SurveyTestBodies.survey(target, res.parameters().withThreads(1));
+        SurveyResult two = res; // run with 2 threads
+        assertEquals(java.util.Arrays.toString(one.siteRank()), java.util.Arrays.toString(two.siteRank()));
+        assertEquals(java.util.Arrays.toString(one.mapLayer()), java.util.Arrays.toString(two.mapLayer()));
+        assertEquals(one.sites().size(), two.sites().size());
+        for (int k = 0; k < one.sites().size(); k++) {
+            assertEquals(one.sites().get(k).score(), two.sites().get(k).score(), 0.0, "bit-identical scores");
+            assertEquals(one.sites().get(k).roughnessDeg(), two.sites().get(k).roughnessDeg(), 0.0);
+        }
     }
 
     @Test
