@@ -62,6 +62,34 @@ final class BruteGeometry {
         return Math.min(segment(p, a, b), Math.min(segment(p, b, c), segment(p, c, a)));
     }
 
+    /**
+     * Distance from p to facet f when it can be at most {@code limit}; otherwise a lower bound above {@code limit}
+     * (distance to the facet's centroid minus the largest centroid-to-vertex distance: the triangle lies in that
+     * sphere). Saves the full computation for far facets.
+     */
+    static double distanceBelow(TriangleMesh m, int f, double[] p, double limit) {
+        double[] xyz = m.xyz();
+        int[] tri = m.tri();
+        double cx = 0;
+        double cy = 0;
+        double cz = 0;
+        for (int k = 0; k < 3; k++) {
+            int i = 3 * tri[3 * f + k];
+            cx += xyz[i] / 3;
+            cy += xyz[i + 1] / 3;
+            cz += xyz[i + 2] / 3;
+        }
+        double rad = 0;
+        for (int k = 0; k < 3; k++) {
+            int i = 3 * tri[3 * f + k];
+            rad = Math.max(rad, Math.sqrt((xyz[i] - cx) * (xyz[i] - cx) + (xyz[i + 1] - cy) * (xyz[i + 1] - cy)
+                + (xyz[i + 2] - cz) * (xyz[i + 2] - cz)));
+        }
+        double lower = Math.sqrt((p[0] - cx) * (p[0] - cx) + (p[1] - cy) * (p[1] - cy) + (p[2] - cz) * (p[2] - cz))
+            - rad;
+        return lower > limit ? lower : distance(m, f, p);
+    }
+
     /** Ray parameter t &gt; 0 where o + t d crosses facet f, or NaN. */
     static double ray(TriangleMesh m, int f, double[] o, double[] d) {
         double[] a = v(m, f, 0);

@@ -75,7 +75,7 @@ class ExactDiscRuleTest {
             double[] p = BruteGeometry.centroid(mesh, f);
             double worst = 0;
             for (int g = 0; g < nf; g++) {
-                double d = BruteGeometry.distance(mesh, g, p);
+                double d = BruteGeometry.distanceBelow(mesh, g, p, r + 1);
                 if (d <= r - DIST_TOL) {
                     worst = Math.max(worst, slope[g]);
                     if (aim[f]) {
@@ -127,7 +127,7 @@ class ExactDiscRuleTest {
                 continue; // safe facets of the slab top only
             }
             for (int g = nSlab; g < nf; g++) {
-                if (BruteGeometry.distance(mesh, g, p) > r) {
+                if (BruteGeometry.distanceBelow(mesh, g, p, r + 1) > r) {
                     continue;
                 }
                 // this box facet is within R of the slab facet's centroid
@@ -135,7 +135,7 @@ class ExactDiscRuleTest {
                 assertTrue(res.discMaxSlopeDeg()[f] >= slope[g], "facet " + g + " is in the disc of " + f);
                 boolean alone = true;
                 for (int h = nSlab; h < nf; h++) {
-                    if (h != g && sharesEdge(mesh, g, h) && BruteGeometry.distance(mesh, h, p) <= r) {
+                    if (h != g && sharesEdge(mesh, g, h) && BruteGeometry.distanceBelow(mesh, h, p, r + 1) <= r) {
                         alone = false;
                     }
                 }

@@ -27,6 +27,8 @@ class LandingSiteTest {
     private static final double ZONE_R = 40;
     /** Facets this close to the radius may fall either way between two distance algorithms, m (round-off). */
     private static final double EDGE_TOL = 1e-7;
+    /** Distances are exact up to this (above every radius used here), m. */
+    private static final double FAR_M = 2 * ZONE_R + 1;
     /** Relative tolerance of statistics summed in another order (round-off; chosen, no source). */
     private static final double REL = 1e-9;
 
@@ -61,7 +63,7 @@ class LandingSiteTest {
     private static double[] distances(double[] p) {
         double[] d = new double[mesh.facetCount()];
         for (int g = 0; g < d.length; g++) {
-            d[g] = BruteGeometry.distance(mesh, g, p);
+            d[g] = BruteGeometry.distanceBelow(mesh, g, p, FAR_M); // exact up to FAR_M, a lower bound beyond
         }
         return d;
     }
