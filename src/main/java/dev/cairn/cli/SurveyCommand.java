@@ -3,6 +3,7 @@ package dev.cairn.cli;
 import dev.cairn.io.BodyModel;
 import dev.cairn.io.InputException;
 import dev.cairn.surface.HoverPoint;
+import dev.cairn.surface.LandingSite;
 import dev.cairn.surface.LandingZone;
 import dev.cairn.surface.Survey;
 import dev.cairn.surface.SurveyOutputs;
@@ -29,8 +30,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "survey", mixinStandardHelpOptions = true,
     header = "Survey the surface of the spinning body (slope, gravity, landing and hovering zones).",
     description = {"Survey the surface of the spinning body: slope, effective gravity,",
-        "dynamic height, lift-off, escape speed, landing zones and hovering points.",
-        "Writes facets.csv, summary.json, surface.vtk and PNG maps to --out.",
+        "dynamic height, lift-off, escape speed, landing sites and zones, hovering points.",
+        "Writes facets.csv, zones.csv, summary.json, surface.vtk and PNG maps to --out.",
         "SI units, model (body-fixed) frame, U > 0, g = grad U; see docs/survey.md.",
         "Caution: results must be verified independently before operational use;",
         "mission rules and the responsible flight-dynamics authority decide."})
@@ -48,6 +49,10 @@ public final class SurveyCommand implements Callable<Integer> {
     @Option(names = "--zone-radius", paramLabel = "M", description = "Radius that must be safe all round a landing "
         + "aim point, m (default ${DEFAULT-VALUE}).")
     double zoneRadius = SurveyParameters.DEFAULT_ZONE_RADIUS_M;
+
+    @Option(names = "--site-radius", paramLabel = "M", description = "Radius of a landing site (landing dispersion): "
+        + "sites are non-overlapping discs of this radius about aim points, m (default: the zone radius).")
+    Double siteRadius;
 
     @Option(names = "--max-roughness", paramLabel = "DEG", description = "Largest RMS spread of facet normals inside "
         + "the zone radius, degrees (default ${DEFAULT-VALUE}).")
@@ -98,7 +103,8 @@ public final class SurveyCommand implements Callable<Integer> {
     }
 
     /** Views added by {@code --views}: quantity and view direction for the {@code render} command. */
-    private static final String[][] VIEWS = {{"slope", "iso"}, {"slope", "+z"}, {"zones", "iso"}, {"g-eff", "iso"}};
+    private static final String[][] VIEWS = {{"sites", "iso"}, {"slope", "iso"}, {"slope", "+z"}, {"zones", "iso"},
+        {"g-eff", "iso"}};
 
     /**
      * Renders the survey's 3D views through the {@code render} subcommand (so that this package needs no JavaFX).
@@ -113,6 +119,9 @@ public final class SurveyCommand implements Callable<Integer> {
             Path png = out.resolve("view-" + v[0] + "-" + v[1].replace("+", "plus") + ".png");
             args.addAll(List.of("--survey", out.toString(), "--quantity", v[0], "--view", v[1],
                 "--out", png.toString()));
+            if (v[0].equals("sites")) {
+                args.addAll(List.of("--overlay", "sites"));
+            }
             StringWriter renderErr = new StringWriter();
             int code = CairnMain.execute(new PrintWriter(new StringWriter()), new PrintWriter(renderErr),
                 args.toArray(new String[0]));
@@ -146,9 +155,13 @@ public final class SurveyCommand implements Callable<Integer> {
         if (threads < 1) {
             throw new InputException("--threads: must be at least 1, got " + threads);
         }
+        if (siteRadius != null && !(siteRadius > 0 && Double.isFinite(siteRadius))) {
+            throw new InputException("--site-radius: must be a positive number of metres, got " + siteRadius);
+        }
         spinOptions.periodSeconds(); // validates --spin-period before the model is read
         spinOptions.axis();
-        return new SurveyParameters(maxSlope, zoneRadius, maxRoughness, hoverAltitudes, threads);
+        return new SurveyParameters(maxSlope, zoneRadius, maxRoughness, hoverAltitudes, threads,
+            siteRadius == null ? Double.NaN : siteRadius);
     }
 
     private void report(PrintWriter o, SurveyResult r) {
@@ -182,6 +195,21 @@ public final class SurveyCommand implements Callable<Integer> {
         }
         o.printf(Locale.ROOT, "Area         %.1f%% below %.4g deg slope, %.2f%% lift-off%n", 100 * below / tot,
             r.parameters().maxSlopeDeg(), 100 * la / tot);
+        double rs = r.parameters().siteRadius();
+        o.printf(Locale.ROOT, "Sites        %d (non-overlapping discs of radius %.4g m about aim points, best first; "
+            + "all in summary.json)%n", r.sites().size(), rs);
+        for (LandingSite x : r.sites().subList(0, Math.min(10, r.sites().size()))) {
+            o.printf(Locale.ROOT, "  #%-3d score %.3f  lat %6.1f lon %7.1f  slope max/mean %.1f/%.1f deg  rough %.1f deg"
+                + "  dh %.3g m  g_eff %.4g m/s^2  esc %.3g m/s  safe %.0f%%  zone %d%s%n", x.rank(), x.score(),
+                x.latDeg(), x.lonDeg(), x.maxSlopeDeg(), x.meanSlopeDeg(), x.roughnessDeg(),
+                x.dynamicHeightRangeM(), x.meanGravityEff(), x.meanEscapeSpeed(), 100 * x.safeAreaFraction(),
+                x.zone(), r.mapLayer()[x.facet()] > 1 ? "  (map layer " + r.mapLayer()[x.facet()] + ")" : "");
+        }
+        double hidden = r.hiddenAreaFraction();
+        if (hidden > 0) {
+            o.printf(Locale.ROOT, "Maps         %.1f%% of the area is hidden on the outer lat/lon maps (rays from the "
+                + "centre of mass cross the surface more than once): see the map-*-layerN.png maps%n", 100 * hidden);
+        }
         o.printf(Locale.ROOT, "Zones        %d (slope < %.4g deg and roughness <= %.4g deg over radius %.4g m)%n",
             r.zones().size(), r.parameters().maxSlopeDeg(), r.parameters().maxRoughnessDeg(),
             r.parameters().zoneRadiusM());

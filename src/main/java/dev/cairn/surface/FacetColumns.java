@@ -55,8 +55,8 @@ public final class FacetColumns {
             + "surface, m/s", (r, f) -> r.escapeSpeed[f]),
         new Column("hover_accel_m_s2", false, "thrust acceleration to hover at rest in the body frame, |a_eff|, m/s^2",
             (r, f) -> r.gEff[f]),
-        new Column("zone", true, "rank of the landing zone whose footprint holds the facet (1 = best), 0 = none",
-            (r, f) -> r.zone[f]),
+        new Column("zone", true, "best rank of the landing zones whose footprints hold the facet (1 = best), 0 = "
+            + "none; every membership is in zones.csv", (r, f) -> r.zone[f]),
         new Column("aim", true, "1 for a zone aim facet (its whole disc is safe and smooth), else 0",
             (r, f) -> r.aimFacet[f] ? 1 : 0),
         new Column("g_eff_normal_m_s2", false, "normal component of a_eff, positive inward (-n.a_eff), m/s^2",
@@ -80,7 +80,11 @@ public final class FacetColumns {
         new Column("roughness_deg", false, "RMS normal spread in the facet's zone disc, deg (NaN if the facet is "
             + "not safe)", (r, f) -> r.roughness[f]),
         new Column("disc_max_slope_deg", false, "largest slope in the facet's zone disc, deg (NaN if the facet is "
-            + "not safe)", (r, f) -> r.discMaxSlope[f]));
+            + "not safe)", (r, f) -> r.discMaxSlope[f]),
+        new Column("site", true, "rank of the landing site whose disc holds the facet (1 = best), 0 = none; sites "
+            + "share no facet", (r, f) -> r.site[f]),
+        new Column("map_layer", true, "layer of the lat/lon maps that shows the facet: 1 = outermost along the ray "
+            + "from the centre of mass, k = below k - 1 other crossings", (r, f) -> r.mapLayer[f]));
 
     /** The header line of facets.csv (no trailing newline). */
     public static String csvHeader() {

@@ -35,20 +35,27 @@ import java.util.List;
  * </ul>
  *
  * <p><b>Landing zones.</b> A facet is <i>safe</i> when its slope is below the limit (so it does not lift off). Its
- * <i>disc</i> is the set of facets reached from it across shared edges whose centroid or some vertex lies within the
- * zone radius R of its centroid (adjacency-based region growing: O(facets in the disc) per facet, never O(F²)). The
- * disc's roughness is the area-weighted RMS angle between its facet normals and their area-weighted mean normal. An
- * <i>aim facet</i> is a safe facet whose whole disc is safe and whose roughness is at most the limit. A zone is a
- * connected set (across shared edges) of aim facets; its footprint is the union of their discs. Zone score in
- * [0, 1] (weights chosen, no source):
+ * <i>disc</i> is the set of facets with any point within the zone radius R of its centroid (exact point-to-triangle
+ * distance, Ericson 2005 §5.1.5, from a grid of facet bounding boxes: complete, including ground that is not
+ * connected to the facet inside the ball, such as the far wall of a crack or an overhang; O(facets near the ball) per
+ * facet, never O(F²)). The disc's roughness is the area-weighted RMS angle between its facet normals and their
+ * area-weighted mean normal. An <i>aim facet</i> is a safe facet whose whole disc is safe and whose roughness is at
+ * most the limit: no facet at or above the slope limit has any point within R of its centroid. A zone is a connected
+ * set (across shared edges) of aim facets; its footprint is the union of their discs. Zone score in [0, 1] (weights
+ * chosen, no source):
  * <pre>
  *   score = 0.4 (1 − discSlope/θmax) + 0.3 (1 − roughness/ρmax) + 0.2 (1 − min(1, grade/tan θmax))
  *         + 0.1 min(1, aimArea/(πR²))
  * </pre>
  * where, as area-weighted means over the zone's aim facets, discSlope is the largest slope in the disc (slope margin
  * of a landing aimed there), roughness the disc roughness and grade (range of dynamic height in the disc)/(2R)
- * (flatness of the effective potential); the last term rewards room to aim. The facet with the best individual score (same formula, disc values,
- * without the area term) is the suggested aim point.
+ * (flatness of the effective potential); the last term rewards room to aim. The facet with the best individual score
+ * (same formula, disc values, without the area term) is the suggested aim point.
+ *
+ * <p><b>Landing sites.</b> Discrete candidates: the disc of the site radius R_s (default R) about an aim facet's
+ * centroid, scored by the same weights on that disc, {@code 0.4 (1 − min(1, maxSlope/θmax)) + 0.3 (1 − min(1,
+ * roughness/ρmax)) + 0.2 (1 − min(1, grade/tan θmax)) + 0.1 safeAreaFraction}, and chosen greedily (best score first,
+ * ties by lower facet index) so that no two overlap: centres at least 2 R_s apart and no facet in two sites.
  *
  * <p><b>Hovering.</b> Up to {@link #HOVER_CANDIDATES} surface facets with the least |a_eff|, at least
  * max(R, 0.05·R_eq) apart, are re-evaluated at each hover altitude along their outward normal (points that fall
@@ -112,16 +119,18 @@ public final class Survey {
         w.fieldCheck = dev.cairn.gravity.FieldCheck.measure(target.field(), w.centroid,
             dev.cairn.gravity.FieldCheck.DEFAULT_SAMPLES, 20261202L, params.threads());
         long t1 = System.nanoTime();
-        // Stage 2: discs, aim facets, zones.
+        // Stage 2: discs, aim facets, zones, sites; which layer of the maps shows each facet.
         w.discs(offset(progress, nf, total), nf / (double) discUnits);
         List<LandingZone> zones = w.zones();
+        List<LandingSite> sites = w.sites();
+        w.mapLayers();
         long t2 = System.nanoTime();
         // Stage 3: hovering.
         List<HoverPoint> hover = w.hover(alts, nCand, req, offset(progress, nf + discUnits, total));
         progress.progress(total, total);
         long t3 = System.nanoTime();
         double[] stages = {(t1 - t0) / 1e9, (t2 - t1) / 1e9, (t3 - t2) / 1e9};
-        return new SurveyResult(w, zones, hover, alts, (t3 - t0) / 1e9, stages, w.notes());
+        return new SurveyResult(w, zones, sites, hover, alts, (t3 - t0) / 1e9, stages, w.notes());
     }
 
     private static ProgressListener offset(ProgressListener p, long base, long total) {
@@ -169,6 +178,16 @@ public final class Survey {
         final boolean[] safe;
         final boolean[] aim;
         final int[] zone;
+        /** Rank of the zone of which the facet is an aim facet, 0 for none. */
+        final int[] aimZone;
+        /** Rank of the landing site whose disc holds the facet, 0 for none. */
+        final int[] site;
+        /** Layer of the latitude–longitude maps that shows the facet (1 = outermost), see {@link LatLonRaster}. */
+        int[] mapLayer;
+        /** Footprint facets of each ranked zone (index rank − 1), increasing facet order. */
+        final List<int[]> zoneFootprints = new ArrayList<>();
+        /** Facets with a point within a radius of a centroid: exact point-to-triangle distance, complete. */
+        FacetGrid grid;
         double referenceV;
         double meanGEff;
 
@@ -206,6 +225,8 @@ public final class Survey {
             safe = new boolean[nf];
             aim = new boolean[nf];
             zone = new int[nf];
+            aimZone = new int[nf];
+            site = new int[nf];
         }
 
         /** Remarks on how far the results can be trusted at this mesh resolution. */
@@ -313,70 +334,121 @@ public final class Survey {
             return Math.sqrt(cx * cx + cy * cy + cz * cz);
         }
 
-        /** Per-thread scratch for disc growth. */
+        /** Per-thread scratch for disc gathering and statistics. */
         final class Scratch {
             final int[] stamp = new int[nf];
             final int[] queue = new int[nf];
+            final double[] stats = new double[STATS];
             int generation;
             int size;
         }
 
         /**
-         * Grows the disc of radius R about facet {@code f}'s centroid into {@code sc.queue[0..size)}.
+         * Gathers the disc of {@code radius} about facet {@code f}'s centroid into {@code sc.queue[0..size)}: every
+         * facet with a point within the radius (exact point-to-triangle distance, Ericson 2005 §5.1.5), whether or
+         * not it is connected to {@code f} inside the ball (the far wall of a crack, the underside of a thin ridge),
+         * in increasing facet order.
          */
-        void growDisc(int f, Scratch sc) {
-            double r2 = params.zoneRadiusM() * params.zoneRadiusM();
-            double px = centroid[3 * f];
-            double py = centroid[3 * f + 1];
-            double pz = centroid[3 * f + 2];
+        void gather(int f, double radius, Scratch sc) {
             int gen = ++sc.generation;
             if (gen == Integer.MAX_VALUE) {
                 Arrays.fill(sc.stamp, 0);
                 sc.generation = gen = 1;
             }
-            int head = 0;
-            int tail = 0;
-            sc.queue[tail++] = f;
-            sc.stamp[f] = gen;
-            double[] xyz = mesh.xyz();
-            int[] tri = mesh.tri();
-            while (head < tail) {
-                int c = sc.queue[head++];
-                for (int k = 0; k < 3; k++) {
-                    int nb = neighbour[3 * c + k];
-                    if (nb < 0 || sc.stamp[nb] == gen) {
-                        continue;
-                    }
-                    sc.stamp[nb] = gen; // decided once: in the disc or not
-                    if (touches(nb, px, py, pz, r2, xyz, tri)) {
-                        sc.queue[tail++] = nb;
-                    }
-                }
-            }
-            sc.size = tail;
+            sc.size = grid.within(centroid[3 * f], centroid[3 * f + 1], centroid[3 * f + 2], radius, sc.stamp, gen,
+                sc.queue);
         }
 
-        private boolean touches(int f, double px, double py, double pz, double r2, double[] xyz, int[] tri) {
-            if (dist2(centroid, 3 * f, px, py, pz) <= r2) {
-                return true;
-            }
-            for (int k = 0; k < 3; k++) {
-                if (dist2(xyz, 3 * tri[3 * f + k], px, py, pz) <= r2) {
-                    return true;
-                }
-            }
-            return false;
-        }
+        /** Statistics slots of {@link #stats}. */
+        static final int S_AREA = 0;
+        static final int S_MAX_SLOPE = 1;
+        static final int S_MEAN_SLOPE = 2;
+        static final int S_ROUGHNESS = 3;
+        static final int S_H_MIN = 4;
+        static final int S_H_MAX = 5;
+        static final int S_SAFE_AREA = 6;
+        static final int S_UNSAFE = 7;
+        static final int S_G_EFF = 8;
+        static final int S_G = 9;
+        static final int S_ESCAPE = 10;
+        static final int S_MIN_ESCAPE = 11;
+        static final int STATS = 12;
 
-        private static double dist2(double[] a, int o, double px, double py, double pz) {
-            double dx = a[o] - px;
-            double dy = a[o + 1] - py;
-            double dz = a[o + 2] - pz;
-            return dx * dx + dy * dy + dz * dz;
+        /**
+         * Statistics of the facets {@code sc.queue[0..size)} into {@code sc.stats}: area, largest and area-weighted
+         * mean slope, roughness (area-weighted RMS angle between the facet normals and their area-weighted mean
+         * normal, degrees; 180 when the normals cancel), dynamic-height range, safe area and unsafe count, area-weighted
+         * mean g_eff, g and escape speed, least escape speed.
+         */
+        void stats(Scratch sc) {
+            double[] st = sc.stats;
+            double mx = 0;
+            double my = 0;
+            double mz = 0;
+            double sa = 0;
+            double maxSlope = 0;
+            double meanSlope = 0;
+            double hMin = Double.POSITIVE_INFINITY;
+            double hMax = Double.NEGATIVE_INFINITY;
+            double safeArea = 0;
+            int unsafe = 0;
+            double ge = 0;
+            double gg = 0;
+            double esc = 0;
+            double minEsc = Double.POSITIVE_INFINITY;
+            for (int i = 0; i < sc.size; i++) {
+                int q = sc.queue[i];
+                double a = area[q];
+                mx += a * normal[3 * q];
+                my += a * normal[3 * q + 1];
+                mz += a * normal[3 * q + 2];
+                sa += a;
+                maxSlope = Math.max(maxSlope, slope[q]);
+                meanSlope += a * slope[q];
+                hMin = Math.min(hMin, dynamicHeight[q]);
+                hMax = Math.max(hMax, dynamicHeight[q]);
+                if (safe[q]) {
+                    safeArea += a;
+                } else {
+                    unsafe++;
+                }
+                ge += a * gEff[q];
+                gg += a * g[q];
+                esc += a * escapeSpeed[q];
+                minEsc = Math.min(minEsc, escapeSpeed[q]);
+            }
+            double ml = Math.sqrt(mx * mx + my * my + mz * mz);
+            double rough = 180; // normals cancel: the disc wraps round the body
+            if (ml > 0) {
+                mx /= ml;
+                my /= ml;
+                mz /= ml;
+                double sq = 0;
+                for (int i = 0; i < sc.size; i++) {
+                    int q = sc.queue[i];
+                    double angle = angle(normal, 3 * q, mx, my, mz);
+                    sq += area[q] * angle * angle;
+                }
+                rough = Math.toDegrees(Math.sqrt(sq / sa));
+            }
+            st[S_AREA] = sa;
+            st[S_MAX_SLOPE] = maxSlope;
+            st[S_MEAN_SLOPE] = meanSlope / sa;
+            st[S_ROUGHNESS] = rough;
+            st[S_H_MIN] = hMin;
+            st[S_H_MAX] = hMax;
+            st[S_SAFE_AREA] = safeArea;
+            st[S_UNSAFE] = unsafe;
+            st[S_G_EFF] = ge / sa;
+            st[S_G] = gg / sa;
+            st[S_ESCAPE] = esc / sa;
+            st[S_MIN_ESCAPE] = minEsc;
         }
 
         /** Disc statistics of every safe facet (parallel), then aim facets. */
         void discs(ProgressListener progress, double divisor) {
+            double r = params.zoneRadiusM();
+            grid = new FacetGrid(mesh, Math.max(r, params.siteRadius()));
             ParallelChunks.run(nf, params.threads(), Scratch::new, (sc, from, to) -> {
                 for (int f = from; f < to; f++) {
                     if (!safe[f]) {
@@ -385,45 +457,13 @@ public final class Survey {
                         discGrade[f] = Double.NaN;
                         continue;
                     }
-                    growDisc(f, sc);
-                    double mx = 0;
-                    double my = 0;
-                    double mz = 0;
-                    double sa = 0;
-                    double maxSlope = 0;
-                    double hMin = Double.POSITIVE_INFINITY;
-                    double hMax = Double.NEGATIVE_INFINITY;
-                    boolean allSafe = true;
-                    for (int i = 0; i < sc.size; i++) {
-                        int q = sc.queue[i];
-                        double a = area[q];
-                        mx += a * normal[3 * q];
-                        my += a * normal[3 * q + 1];
-                        mz += a * normal[3 * q + 2];
-                        sa += a;
-                        maxSlope = Math.max(maxSlope, slope[q]);
-                        hMin = Math.min(hMin, dynamicHeight[q]);
-                        hMax = Math.max(hMax, dynamicHeight[q]);
-                        allSafe &= safe[q];
-                    }
-                    double ml = Math.sqrt(mx * mx + my * my + mz * mz);
-                    double sq = 0;
-                    if (ml > 0) {
-                        mx /= ml;
-                        my /= ml;
-                        mz /= ml;
-                        for (int i = 0; i < sc.size; i++) {
-                            int q = sc.queue[i];
-                            double angle = angle(normal, 3 * q, mx, my, mz);
-                            sq += area[q] * angle * angle;
-                        }
-                        roughness[f] = Math.toDegrees(Math.sqrt(sq / sa));
-                    } else {
-                        roughness[f] = 180; // normals cancel: the disc wraps round the body
-                    }
-                    discMaxSlope[f] = maxSlope;
-                    discGrade[f] = (hMax - hMin) / (2 * params.zoneRadiusM());
-                    discAllSafe[f] = allSafe;
+                    gather(f, r, sc);
+                    stats(sc);
+                    double[] st = sc.stats;
+                    roughness[f] = st[S_ROUGHNESS];
+                    discMaxSlope[f] = st[S_MAX_SLOPE];
+                    discGrade[f] = (st[S_H_MAX] - st[S_H_MIN]) / (2 * r);
+                    discAllSafe[f] = st[S_UNSAFE] == 0;
                 }
             }, scaled(progress, divisor));
             for (int f = 0; f < nf; f++) {
@@ -485,7 +525,7 @@ public final class Survey {
                 int[] core = cores.get(id);
                 int nFoot = 0;
                 for (int f : core) {
-                    growDisc(f, sc);
+                    gather(f, r, sc);
                     for (int i = 0; i < sc.size; i++) {
                         int q = sc.queue[i];
                         if (mark[q] != id) {
@@ -552,11 +592,11 @@ public final class Survey {
                     frame.latitudeDeg(c[0], c[1], c[2]), frame.longitudeDeg(c[0], c[1], c[2]), best, bp, lat[best],
                     lon[best], maxSlope,
                     meanSlope / sa, rough, hMax - hMin, mge / sa, mg / sa, mesc / sa, minEsc);
-                unranked.add(new Candidate(z, footprint, core[0]));
+                unranked.add(new Candidate(z, footprint, core));
             }
             unranked.sort(Comparator.<Candidate>comparingDouble(c -> -c.zone().score())
                 .thenComparingDouble(c -> -c.zone().areaM2())
-                .thenComparingInt(Candidate::firstAimFacet));
+                .thenComparingInt(c -> c.core()[0]));
             List<LandingZone> out = new ArrayList<>();
             for (int i = 0; i < unranked.size(); i++) {
                 LandingZone z = unranked.get(i).zone();
@@ -566,6 +606,10 @@ public final class Survey {
                         zone[q] = rank;
                     }
                 }
+                for (int q : unranked.get(i).core()) {
+                    aimZone[q] = rank;
+                }
+                zoneFootprints.add(unranked.get(i).footprint());
                 out.add(new LandingZone(rank, z.score(), z.facetCount(), z.aimFacetCount(), z.areaM2(),
                     z.aimAreaM2(), z.centroid(), z.latDeg(), z.lonDeg(), z.bestFacet(), z.bestPoint(), z.bestLatDeg(),
                     z.bestLonDeg(),
@@ -575,8 +619,91 @@ public final class Survey {
             return out;
         }
 
-        /** A zone before ranking: its statistics, footprint facets and lowest aim facet (the last tie-break). */
-        private record Candidate(LandingZone zone, int[] footprint, int firstAimFacet) {
+        /** A zone before ranking: its statistics, footprint facets and aim facets (sorted; the first breaks ties). */
+        private record Candidate(LandingZone zone, int[] footprint, int[] core) {
+        }
+
+        /**
+         * Site score in [0, 1] from the statistics of a site disc (weights of the zone score, chosen, no source):
+         * 0.4 (1 − min(1, maxSlope/θmax)) + 0.3 (1 − min(1, roughness/ρmax)) + 0.2 (1 − min(1, grade/tan θmax))
+         * + 0.1 safeAreaFraction, grade = (dynamic-height range)/(2 R_site).
+         */
+        double siteScore(double[] st, double rs) {
+            double th = params.maxSlopeDeg();
+            double grade = (st[S_H_MAX] - st[S_H_MIN]) / (2 * rs);
+            return W_SLOPE * (1 - Math.min(1, st[S_MAX_SLOPE] / th))
+                + W_ROUGH * (1 - Math.min(1, st[S_ROUGHNESS] / params.maxRoughnessDeg()))
+                + W_GRADE * (1 - Math.min(1, grade / Math.tan(Math.toRadians(th))))
+                + W_AREA * st[S_SAFE_AREA] / st[S_AREA];
+        }
+
+        /**
+         * Landing sites: discs of the site radius R_s about aim-facet centroids, chosen greedily by site score (ties:
+         * lower facet index) so that no two overlap: a candidate is taken only when its centre is at least 2 R_s from
+         * every chosen centre (the balls of radius R_s are disjoint) and none of its facets lies in a chosen site's
+         * disc. O(aim facets × disc size).
+         */
+        List<LandingSite> sites() {
+            double rs = params.siteRadius();
+            double[] score = new double[nf];
+            Arrays.fill(score, Double.NaN);
+            ParallelChunks.run(nf, params.threads(), Scratch::new, (sc, from, to) -> {
+                for (int f = from; f < to; f++) {
+                    if (aim[f]) {
+                        gather(f, rs, sc);
+                        stats(sc);
+                        score[f] = siteScore(sc.stats, rs);
+                    }
+                }
+            }, ProgressListener.NONE);
+            int n = 0;
+            for (boolean a : aim) {
+                n += a ? 1 : 0;
+            }
+            Integer[] order = new Integer[n];
+            n = 0;
+            for (int f = 0; f < nf; f++) {
+                if (aim[f]) {
+                    order[n++] = f;
+                }
+            }
+            Arrays.sort(order, Comparator.<Integer>comparingDouble(f -> -score[f]).thenComparingInt(f -> f));
+            PointGrid centres = new PointGrid(2 * rs);
+            Scratch sc = new Scratch();
+            List<LandingSite> out = new ArrayList<>();
+            for (int f : order) {
+                double x = centroid[3 * f];
+                double y = centroid[3 * f + 1];
+                double z = centroid[3 * f + 2];
+                if (centres.anyWithin(x, y, z, 2 * rs)) {
+                    continue;
+                }
+                gather(f, rs, sc);
+                boolean free = true;
+                for (int i = 0; i < sc.size && free; i++) {
+                    free = site[sc.queue[i]] == 0;
+                }
+                if (!free) {
+                    continue;
+                }
+                int rank = out.size() + 1;
+                for (int i = 0; i < sc.size; i++) {
+                    site[sc.queue[i]] = rank;
+                }
+                centres.add(x, y, z);
+                stats(sc);
+                double[] st = sc.stats;
+                out.add(new LandingSite(rank, score[f], f, new double[] {x, y, z}, lat[f], lon[f], aimZone[f],
+                    sc.size, st[S_AREA], st[S_MAX_SLOPE], st[S_MEAN_SLOPE], st[S_ROUGHNESS],
+                    st[S_H_MAX] - st[S_H_MIN], st[S_G_EFF], st[S_G], st[S_ESCAPE], st[S_MIN_ESCAPE],
+                    st[S_SAFE_AREA] / st[S_AREA]));
+            }
+            return out;
+        }
+
+        /** Which map layer shows each facet (the maps' ray casting from the centre of mass). */
+        void mapLayers() {
+            mapLayer = LatLonRaster.facetLayers(mesh, frame, params.threads());
         }
 
         /** Hovering: distinct low-|a_eff| facets, re-evaluated at each altitude. */

@@ -35,7 +35,7 @@ public final class SurveyMaps {
     private static final int LEFT = 70;
     private static final int TOP = 44;
     private static final int RIGHT = 130;
-    private static final int BOTTOM = 70;
+    private static final int BOTTOM = 84;
     /** Size of a map image, pixels. */
     public static final int MAP_WIDTH = LEFT + GRID_W + RIGHT;
     public static final int MAP_HEIGHT = TOP + GRID_H + BOTTOM;
@@ -45,6 +45,11 @@ public final class SurveyMaps {
 
     private static final Color NO_DATA = new Color(0x80, 0x80, 0x80);
     private static final Color LIFT_OFF = new Color(0xE0, 0x2F, 0xC8);
+    /** Hatching of cells whose ray crosses the surface again below the layer shown. */
+    private static final Color HIDDEN = new Color(0x10, 0x10, 0x10);
+    private static final int HATCH = 6;
+    /** Sites circled on the slope maps. */
+    static final int MARKED_SITES = 10;
     /** Sequential ramp: deep indigo, slate blue, sea green, straw, pale cream. */
     private static final int[] SEQUENTIAL = {0x201A40, 0x2F5A8C, 0x35967A, 0xC9B85A, 0xF6F0D6};
     /** Diverging ramp for signed values: blue, near-white, brick red. */
@@ -53,26 +58,39 @@ public final class SurveyMaps {
     private SurveyMaps() {
     }
 
-    /** Writes the four PNG files into {@code dir}; returns their paths. */
+    /**
+     * Writes the maps and the histogram into {@code dir}; returns their paths. When rays from the centre of mass cross
+     * the surface more than once, each map is also written for the inner layers ({@link #layerFile}), so that the
+     * layers together show every facet (up to {@link LatLonRaster#MAX_LAYERS} layers).
+     */
     public static List<Path> writeAll(SurveyResult r, Path dir) {
         RotatingFrame frame = new RotatingFrame(r.target.spin(), r.target.centreOfMass());
         LatLonRaster raster = LatLonRaster.build(r.target.mesh(), frame, GRID_W, GRID_H, r.parameters.threads());
         List<Path> out = new ArrayList<>();
         double[] s = r.slope;
         double top = Math.min(90, Math.max(2 * r.parameters.maxSlopeDeg(), Math.ceil(percentile(r, s, 0.99) / 5) * 5));
-        out.add(write(dir.resolve(SLOPE), map(r, raster, s, 0, top, SEQUENTIAL, "Slope", "deg", true)));
         double[] ge = r.gEff;
-        out.add(write(dir.resolve(G_EFF), map(r, raster, ge, min(ge), max(ge), SEQUENTIAL,
-            "Effective gravity |g + centrifugal|", "m/s^2", false)));
         double[] h = r.dynamicHeight;
         double hm = Math.max(Math.abs(min(h)), Math.abs(max(h)));
         if (!(hm > 0)) {
             hm = 1;
         }
-        out.add(write(dir.resolve(DYNAMIC_HEIGHT), map(r, raster, h, -hm, hm, DIVERGING,
-            "Dynamic height (0 = mean level)", "m", false)));
+        for (int layer = 1; layer <= raster.layers(); layer++) {
+            String tl = layer == 1 ? "" : ", layer " + layer;
+            out.add(write(dir.resolve(layerFile(SLOPE, layer)), map(r, raster, layer, s, 0, top, SEQUENTIAL,
+                "Slope" + tl, "deg", true)));
+            out.add(write(dir.resolve(layerFile(G_EFF, layer)), map(r, raster, layer, ge, min(ge), max(ge),
+                SEQUENTIAL, "Effective gravity |g + centrifugal|" + tl, "m/s^2", false)));
+            out.add(write(dir.resolve(layerFile(DYNAMIC_HEIGHT, layer)), map(r, raster, layer, h, -hm, hm, DIVERGING,
+                "Dynamic height (0 = mean level)" + tl, "m", false)));
+        }
         out.add(write(dir.resolve(HISTOGRAM), histogram(r)));
         return out;
+    }
+
+    /** File of a map for a layer: the name itself for layer 1, {@code map-slope-layer2.png} for layer 2, ... */
+    public static String layerFile(String name, int layer) {
+        return layer == 1 ? name : name.replace(".png", "-layer" + layer + ".png");
     }
 
     private static Path write(Path file, BufferedImage img) {
@@ -173,16 +191,18 @@ public final class SurveyMaps {
         return r.target.name() + ", " + r.facets + " facets, " + spin;
     }
 
-    private static BufferedImage map(SurveyResult r, LatLonRaster raster, double[] v, double lo, double hi,
+    private static BufferedImage map(SurveyResult r, LatLonRaster raster, int layer, double[] v, double lo, double hi,
                                      int[] stops, String title, String unit, boolean slopeMap) {
         BufferedImage img = new BufferedImage(MAP_WIDTH, MAP_HEIGHT, BufferedImage.TYPE_INT_RGB);
         Graphics2D g = graphics(img);
         double span = hi > lo ? hi - lo : 1;
         for (int j = 0; j < raster.height(); j++) {
             for (int i = 0; i < raster.width(); i++) {
-                int f = raster.facet(i, j);
+                int f = raster.facet(i, j, layer);
                 Color c;
-                if (f < 0) {
+                if (raster.crossings(i, j) > layer && (i + j) % HATCH == 0) {
+                    c = HIDDEN; // more surface lies below this layer here
+                } else if (f < 0) {
                     c = NO_DATA;
                 } else if (slopeMap && r.liftOff[f]) {
                     c = LIFT_OFF;
@@ -218,7 +238,7 @@ public final class SurveyMaps {
         g.setFont(bold);
         g.drawString(title + " (" + unit + ")", LEFT, 18);
         g.setFont(g.getFont().deriveFont(Font.PLAIN, 11f));
-        g.drawString(subtitle(r) + "; lat/lon about the spin pole from the centre of mass", LEFT, 36);
+        g.drawString(mapSubtitle(r, layer), LEFT, 36);
         g.drawString("Caution: " + SurveyOutputs.CAUTION, LEFT - 60, MAP_HEIGHT - 10);
         // Colour bar.
         int bx = LEFT + GRID_W + 30;
@@ -245,28 +265,85 @@ public final class SurveyMaps {
             g.fillRect(bx, TOP + GRID_H + 8, bw, 10);
             g.setColor(Color.BLACK);
             g.drawString("lift-off", bx + bw + 4, TOP + GRID_H + 17);
-            markZones(g, r);
+            int hidden = markSites(g, r, layer);
             g.setColor(Color.BLACK);
-            g.drawString("O n = zone n", bx - 8, TOP + GRID_H + 34);
-            g.drawString("(best aim point)", bx - 8, TOP + GRID_H + 48);
+            g.drawString("O n = site n", bx - 8, TOP + GRID_H + 34);
+            g.drawString(hidden == 0 ? "(aim point)" : hidden + (layer == 1 ? " on layer maps" : " on other layers"),
+                bx - 8, TOP + GRID_H + 48);
         }
+        hiddenLegend(g, r, raster, layer, bx, bw);
         g.dispose();
         return img;
     }
 
-    private static void markZones(Graphics2D g, SurveyResult r) {
+    /**
+     * Circles the best {@value #MARKED_SITES} sites whose aim facet this layer shows (map layer of the facet, see
+     * {@link LatLonRaster#facetLayers}); returns how many of them are shown on other layers instead.
+     */
+    private static int markSites(Graphics2D g, SurveyResult r, int layer) {
         g.setStroke(new BasicStroke(1.5f));
-        int n = Math.min(10, r.zones.size());
+        int n = Math.min(MARKED_SITES, r.sites.size());
+        int elsewhere = 0;
         for (int k = 0; k < n; k++) {
-            LandingZone z = r.zones.get(k);
-            int x = LEFT + (int) Math.round((z.bestLonDeg() + 180) / 360 * GRID_W);
-            int y = TOP + (int) Math.round((90 - z.bestLatDeg()) / 180 * GRID_H);
+            LandingSite s = r.sites.get(k);
+            if (r.mapLayer[s.facet()] != layer) {
+                elsewhere++;
+                continue;
+            }
+            int x = LEFT + (int) Math.round((s.lonDeg() + 180) / 360 * GRID_W);
+            int y = TOP + (int) Math.round((90 - s.latDeg()) / 180 * GRID_H);
             g.setColor(Color.WHITE);
             g.drawOval(x - 6, y - 6, 12, 12);
             g.setColor(Color.BLACK);
             g.drawOval(x - 7, y - 7, 14, 14);
-            g.drawString(String.valueOf(z.rank()), x + 9, y + 4);
+            g.drawString(String.valueOf(s.rank()), x + 9, y + 4);
         }
+        return elsewhere;
+    }
+
+    /** Legend entry for the hatching of cells with more surface below this layer (only when there are such). */
+    private static void hiddenLegend(Graphics2D g, SurveyResult r, LatLonRaster raster, int layer, int bx, int bw) {
+        if (raster.layers() <= layer) {
+            return;
+        }
+        int y = TOP + GRID_H + 55;
+        g.setColor(Color.WHITE);
+        g.fillRect(bx, y, bw, 10);
+        g.setColor(HIDDEN);
+        g.drawRect(bx, y, bw, 10);
+        for (int d = 0; d < bw + 10; d += HATCH) {
+            g.drawLine(bx + Math.max(0, d - 10), y + Math.min(10, d), bx + Math.min(bw, d), y + Math.max(0, d - bw));
+        }
+        g.setColor(Color.BLACK);
+        g.drawString("hidden below", bx + bw + 4, y + 9);
+    }
+
+    /**
+     * The second title line: body, spin, what the layer is, and the area fraction it hides (facets on deeper layers)
+     * or leaves unmapped.
+     */
+    static String mapSubtitle(SurveyResult r, int layer) {
+        double total = 0;
+        double below = 0;
+        double here = 0;
+        for (int f = 0; f < r.facets; f++) {
+            total += r.area[f];
+            below += r.mapLayer[f] > layer ? r.area[f] : 0;
+            here += r.mapLayer[f] == layer ? r.area[f] : 0;
+        }
+        String s = subtitle(r);
+        if (layer > 1) {
+            s += "; layer " + layer + " from outside (" + pct(here / total) + " of area)";
+        } else if (below == 0) {
+            return s + "; lat/lon about the spin pole from the centre of mass";
+        } else {
+            s += "; outermost surface";
+        }
+        return s + (below > 0 ? "; " + pct(below / total) + " of area hidden below (hatched)" : "");
+    }
+
+    private static String pct(double f) {
+        return String.format(Locale.ROOT, f < 0.001 && f > 0 ? "%.3f%%" : "%.1f%%", 100 * f);
     }
 
     /** Area-weighted slope histogram: 2.5° bins 0–90° plus one bar for &gt; 90° (lift-off). */

@@ -28,6 +28,8 @@ public final class SurveyOutputs {
     public static final String CSV = "facets.csv";
     public static final String JSON = "summary.json";
     public static final String VTK = "surface.vtk";
+    /** Every zone's footprint: one row per (facet, zone) membership. */
+    public static final String ZONES_CSV = "zones.csv";
 
     /** The one-line caution carried by every output. */
     public static final String CAUTION = "Results must be verified independently before operational use; mission "
@@ -45,6 +47,7 @@ public final class SurveyOutputs {
         out.add(writeCsv(r, dir.resolve(CSV)));
         out.add(writeJson(r, dir.resolve(JSON)));
         out.add(writeVtk(r, dir.resolve(VTK)));
+        out.add(writeZonesCsv(r, dir.resolve(ZONES_CSV)));
         out.addAll(SurveyMaps.writeAll(r, dir));
         return out;
     }
@@ -65,6 +68,30 @@ public final class SurveyOutputs {
                 sb.append('\n');
                 if (sb.length() > 1 << 20) {
                     flush(sb, os);
+                }
+            }
+            flush(sb, os);
+        });
+        return file;
+    }
+
+    /**
+     * {@code zones.csv}: header {@code zone,facet,aim}, then one row per facet of every zone footprint (zone rank
+     * increasing, then facet index), {@code aim} 1 for the zone's aim facets. Footprints of different zones may share
+     * facets; the {@code zone} column of facets.csv holds only the best rank, this file every membership.
+     */
+    public static Path writeZonesCsv(SurveyResult r, Path file) {
+        AtomicFiles.write(file, os -> {
+            StringBuilder sb = new StringBuilder(1 << 16);
+            sb.append("zone,facet,aim\n");
+            for (int k = 0; k < r.zones.size(); k++) {
+                int rank = k + 1;
+                for (int f : r.zoneFootprints.get(k)) {
+                    sb.append(rank).append(',').append(f).append(',').append(r.aimZone[f] == rank ? 1 : 0)
+                        .append('\n');
+                    if (sb.length() > 1 << 20) {
+                        flush(sb, os);
+                    }
                 }
             }
             flush(sb, os);
@@ -212,12 +239,15 @@ public final class SurveyOutputs {
         par.put("max_slope_deg", p.maxSlopeDeg());
         par.put("zone_radius_m", p.zoneRadiusM());
         par.put("max_roughness_deg", p.maxRoughnessDeg());
+        par.put("site_radius_m", p.siteRadius());
         par.put("hover_altitudes_m", r.hoverAltitudes);
         par.put("dynamic_height_reference", "area-weighted mean of the effective potential over the surface");
         par.put("reference_potential_eff_m2_s2", r.referencePotentialEff);
         par.put("dynamic_height_divisor_m_s2", r.meanGEff);
         j.put("parameters", par);
         j.put("statistics", statistics(r));
+        j.put("site_count", r.sites.size());
+        j.put("sites", sites(r));
         j.put("slope_bands", slopeBands(r));
         List<Map<String, Object>> zones = new ArrayList<>();
         for (LandingZone z : r.zones) {
@@ -261,6 +291,7 @@ public final class SurveyOutputs {
             hover.add(m);
         }
         j.put("hovering", hover);
+        j.put("map_layers", mapLayers(r));
         Map<String, Object> conv = new LinkedHashMap<>();
         conv.put("units", "SI: m, s, kg; angles in degrees");
         conv.put("potential", "U > 0 (U -> GM/r far away); gravity g = grad U points toward the body");
@@ -275,6 +306,8 @@ public final class SurveyOutputs {
         conv.put("escape_speed", "launch along the outward normal, relative to the surface, from inertial energy "
             + "|v + w x r|^2 / 2 - U = 0 (energy treated as conserved; estimate for non-axisymmetric bodies)");
         conv.put("hover_accel", "|a_eff|: thrust acceleration to stay at rest in the body frame");
+        conv.put("sites", "discs of radius site_radius_m (every facet with a point within it) about aim points, "
+            + "chosen greedily by score; centres at least 2 site radii apart and no facet in two sites");
         conv.put("zones", "connected aim facets whose whole disc of radius zone_radius_m has slope < max_slope_deg "
             + "and RMS normal spread <= max_roughness_deg; see docs/survey.md for the score");
         j.put("conventions", conv);
@@ -287,6 +320,64 @@ public final class SurveyOutputs {
         j.put("stage_seconds", stages);
         j.put("caution", CAUTION);
         return j;
+    }
+
+    /** Ranked landing sites for summary.json. */
+    private static List<Map<String, Object>> sites(SurveyResult r) {
+        List<Map<String, Object>> out = new ArrayList<>();
+        for (LandingSite s : r.sites) {
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("rank", s.rank());
+            m.put("score", s.score());
+            m.put("aim_facet", s.facet());
+            m.put("aim_point_m", s.position());
+            m.put("lat_deg", s.latDeg());
+            m.put("lon_deg", s.lonDeg());
+            m.put("zone", s.zone());
+            m.put("map_layer", r.mapLayer[s.facet()]);
+            m.put("facet_count", s.facetCount());
+            m.put("area_m2", s.areaM2());
+            m.put("max_slope_deg", s.maxSlopeDeg());
+            m.put("mean_slope_deg", s.meanSlopeDeg());
+            m.put("roughness_deg", s.roughnessDeg());
+            m.put("dynamic_height_range_m", s.dynamicHeightRangeM());
+            m.put("mean_g_eff_m_s2", s.meanGravityEff());
+            m.put("mean_g_m_s2", s.meanGravity());
+            m.put("mean_escape_speed_m_s", s.meanEscapeSpeed());
+            m.put("min_escape_speed_m_s", s.minEscapeSpeed());
+            m.put("safe_area_fraction", s.safeAreaFraction());
+            out.add(m);
+        }
+        return out;
+    }
+
+    /** Map layers: how much of the surface each layer of the lat/lon maps shows, and how much the outer one hides. */
+    private static Map<String, Object> mapLayers(SurveyResult r) {
+        int max = 1;
+        for (int l : r.mapLayer) {
+            max = Math.max(max, l);
+        }
+        double total = 0;
+        double[] a = new double[max + 1];
+        for (int f = 0; f < r.facets; f++) {
+            total += r.area[f];
+            a[r.mapLayer[f]] += r.area[f];
+        }
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("layers", Math.min(max, LatLonRaster.MAX_LAYERS));
+        m.put("hidden_on_outer_maps_area_fraction", r.hiddenAreaFraction());
+        List<Double> per = new ArrayList<>();
+        double unmapped = a[0];
+        for (int l = 1; l <= max; l++) {
+            if (l <= LatLonRaster.MAX_LAYERS) {
+                per.add(a[l] / total);
+            } else {
+                unmapped += a[l];
+            }
+        }
+        m.put("area_fraction_per_layer", per);
+        m.put("on_no_map_area_fraction", unmapped / total);
+        return m;
     }
 
     private static Map<String, Object> statistics(SurveyResult r) {

@@ -14,9 +14,10 @@ import dev.cairn.util.ParallelChunks;
  *                         assessed; {@code null} for the default fractions {@link #DEFAULT_HOVER_ALTITUDE_FRACTIONS}
  *                         of the body's equivalent radius
  * @param threads          worker threads, ≥ 1 (results do not depend on it)
+ * @param siteRadiusM      radius of a landing site (landing dispersion), metres, &gt; 0, or NaN for the zone radius
  */
 public record SurveyParameters(double maxSlopeDeg, double zoneRadiusM, double maxRoughnessDeg,
-                               double[] hoverAltitudesM, int threads) {
+                               double[] hoverAltitudesM, int threads, double siteRadiusM) {
     /** Default landing slope limit, degrees (common practice, no source: landing limits of 15–30° are usual). */
     public static final double DEFAULT_MAX_SLOPE_DEG = 15.0;
     /** Default zone radius, metres (chosen, no source). */
@@ -47,6 +48,25 @@ public record SurveyParameters(double maxSlopeDeg, double zoneRadiusM, double ma
         if (threads < 1) {
             throw new IllegalArgumentException("threads must be at least 1, got " + threads);
         }
+        if (!Double.isNaN(siteRadiusM) && !(siteRadiusM > 0 && Double.isFinite(siteRadiusM))) {
+            throw new IllegalArgumentException("site radius must be a positive number of metres, got " + siteRadiusM);
+        }
+    }
+
+    /** Parameters whose site radius is the zone radius. */
+    public SurveyParameters(double maxSlopeDeg, double zoneRadiusM, double maxRoughnessDeg, double[] hoverAltitudesM,
+                            int threads) {
+        this(maxSlopeDeg, zoneRadiusM, maxRoughnessDeg, hoverAltitudesM, threads, Double.NaN);
+    }
+
+    /** The site radius in effect, metres: {@link #siteRadiusM()}, or the zone radius when that is NaN. */
+    public double siteRadius() {
+        return Double.isNaN(siteRadiusM) ? zoneRadiusM : siteRadiusM;
+    }
+
+    /** These parameters with another site radius (metres; NaN for the zone radius). */
+    public SurveyParameters withSiteRadius(double m) {
+        return new SurveyParameters(maxSlopeDeg, zoneRadiusM, maxRoughnessDeg, hoverAltitudesM, threads, m);
     }
 
     /** Defaults: 15°, 25 m, 10°, default altitudes, all processors. */
@@ -57,27 +77,27 @@ public record SurveyParameters(double maxSlopeDeg, double zoneRadiusM, double ma
 
     /** These parameters with another slope limit. */
     public SurveyParameters withMaxSlope(double deg) {
-        return new SurveyParameters(deg, zoneRadiusM, maxRoughnessDeg, hoverAltitudesM, threads);
+        return new SurveyParameters(deg, zoneRadiusM, maxRoughnessDeg, hoverAltitudesM, threads, siteRadiusM);
     }
 
     /** These parameters with another zone radius. */
     public SurveyParameters withZoneRadius(double m) {
-        return new SurveyParameters(maxSlopeDeg, m, maxRoughnessDeg, hoverAltitudesM, threads);
+        return new SurveyParameters(maxSlopeDeg, m, maxRoughnessDeg, hoverAltitudesM, threads, siteRadiusM);
     }
 
     /** These parameters with another roughness limit. */
     public SurveyParameters withMaxRoughness(double deg) {
-        return new SurveyParameters(maxSlopeDeg, zoneRadiusM, deg, hoverAltitudesM, threads);
+        return new SurveyParameters(maxSlopeDeg, zoneRadiusM, deg, hoverAltitudesM, threads, siteRadiusM);
     }
 
     /** These parameters with explicit hover altitudes (metres; null for the default). */
     public SurveyParameters withHoverAltitudes(double[] m) {
-        return new SurveyParameters(maxSlopeDeg, zoneRadiusM, maxRoughnessDeg, m, threads);
+        return new SurveyParameters(maxSlopeDeg, zoneRadiusM, maxRoughnessDeg, m, threads, siteRadiusM);
     }
 
     /** These parameters with another thread count. */
     public SurveyParameters withThreads(int n) {
-        return new SurveyParameters(maxSlopeDeg, zoneRadiusM, maxRoughnessDeg, hoverAltitudesM, n);
+        return new SurveyParameters(maxSlopeDeg, zoneRadiusM, maxRoughnessDeg, hoverAltitudesM, n, siteRadiusM);
     }
 
     /** Hover altitudes (a copy), or null for the default. */

@@ -38,6 +38,11 @@ public final class SurveyResult {
     final double[] roughness;
     final double[] discMaxSlope;
     final int[] zone;
+    final int[] aimZone;
+    final int[] site;
+    final int[] mapLayer;
+    final List<int[]> zoneFootprints;
+    final List<LandingSite> sites;
     final boolean[] aimFacet;
     final double referencePotentialEff;
     final double meanGEff;
@@ -49,7 +54,8 @@ public final class SurveyResult {
     final List<String> notes;
     final dev.cairn.gravity.FieldCheck fieldCheck;
 
-    SurveyResult(Survey.Work w, List<LandingZone> zones, List<HoverPoint> hovering, double[] hoverAltitudes,
+    SurveyResult(Survey.Work w, List<LandingZone> zones, List<LandingSite> sites, List<HoverPoint> hovering,
+                 double[] hoverAltitudes,
                  double seconds, double[] stageSeconds, List<String> notes) {
         this.fieldCheck = w.fieldCheck;
         this.target = w.target;
@@ -78,6 +84,11 @@ public final class SurveyResult {
         this.roughness = w.roughness;
         this.discMaxSlope = w.discMaxSlope;
         this.zone = w.zone;
+        this.aimZone = w.aimZone;
+        this.site = w.site;
+        this.mapLayer = w.mapLayer;
+        this.zoneFootprints = List.copyOf(w.zoneFootprints);
+        this.sites = List.copyOf(sites);
         this.aimFacet = w.aim;
         this.referencePotentialEff = w.referenceV;
         this.meanGEff = w.meanGEff;
@@ -231,6 +242,48 @@ public final class SurveyResult {
     /** Rank of the landing zone whose footprint holds the facet (1 = best), 0 for none. */
     public int[] zoneRank() {
         return zone.clone();
+    }
+
+    /** Rank of the zone of which the facet is an aim facet (1 = best), 0 for none. */
+    public int[] aimZoneRank() {
+        return aimZone.clone();
+    }
+
+    /** Rank of the landing site whose disc holds the facet (1 = best), 0 for none (sites do not share facets). */
+    public int[] siteRank() {
+        return site.clone();
+    }
+
+    /** Landing sites, best first. */
+    public List<LandingSite> sites() {
+        return sites;
+    }
+
+    /**
+     * Footprint facets of the zone of rank {@code rank} (1-based), increasing facet order (a copy). Footprints may
+     * overlap; {@link #zoneRank()} holds only the best rank per facet.
+     */
+    public int[] zoneFootprint(int rank) {
+        return zoneFootprints.get(rank - 1).clone();
+    }
+
+    /**
+     * Layer of the latitude–longitude maps that shows the facet: 1 for the outermost crossing of the ray from the
+     * centre of mass through its centroid, k when k − 1 crossings lie farther out (hidden on the outer maps).
+     */
+    public int[] mapLayer() {
+        return mapLayer.clone();
+    }
+
+    /** Area fraction of the surface hidden on the outer maps (map layer above 1). */
+    public double hiddenAreaFraction() {
+        double total = 0;
+        double hidden = 0;
+        for (int f = 0; f < facets; f++) {
+            total += area[f];
+            hidden += mapLayer[f] > 1 ? area[f] : 0;
+        }
+        return hidden / total;
     }
 
     /** True for aim facets (zone cores). */

@@ -271,14 +271,19 @@ public final class BodyScene {
         return overlays.get(o).isVisible();
     }
 
-    /** Sets the survey (for zone outlines); may be null. */
+    /** Sets the survey (for zone and site outlines); may be null. */
     public void setSurvey(SurveyData s) {
         survey = s;
         Group z = overlays.get(Overlay.ZONES);
+        Group st = overlays.get(Overlay.SITES);
         z.getChildren().clear();
+        st.getChildren().clear();
         if (s != null) {
             for (SurveyData.Zone zone : s.zones()) {
                 z.getChildren().add(Lines.of(geometry.outline(zone.facets(), LINE_LIFT), Color.WHITE));
+            }
+            for (SurveyData.Zone site : s.sites()) {
+                st.getChildren().add(Lines.of(geometry.outline(site.facets(), LINE_LIFT), Color.rgb(255, 225, 90)));
             }
         }
     }

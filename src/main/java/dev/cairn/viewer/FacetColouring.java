@@ -95,9 +95,10 @@ public final class FacetColouring {
                 out[f] = r > 0 ? ColourRamp.category(r) : ColourRamp.NEUTRAL;
                 maxRank = Math.max(maxRank, r);
             }
-            sw.add(new Legend.Swatch("no zone", ColourRamp.NEUTRAL));
+            String what = q == Quantity.SITES ? "site" : "zone";
+            sw.add(new Legend.Swatch("no " + what, ColourRamp.NEUTRAL));
             for (int r = 1; r <= Math.min(maxRank, 8); r++) {
-                sw.add(new Legend.Swatch("zone " + r, ColourRamp.category(r)));
+                sw.add(new Legend.Swatch(what + " " + r, ColourRamp.category(r)));
             }
             if (maxRank > 8) {
                 sw.add(new Legend.Swatch("(colours repeat after 8)", ColourRamp.NEUTRAL));

@@ -54,7 +54,8 @@ public final class OffscreenRenderer {
             body.setOverlay(o, true);
         }
         body.resetView(q.view());
-        Pane labels = ZoneLabels.pane(body, vp[2], vp[3], q.overlays().contains(Overlay.ZONES));
+        Pane labels = ZoneLabels.pane(body, vp[2], vp[3], q.overlays().contains(Overlay.ZONES),
+            q.overlays().contains(Overlay.SITES));
         Pane view3d = new Pane(body.node(), labels);
         view3d.setPrefSize(vp[2], vp[3]);
         LegendView legend = new LegendView();

@@ -9,7 +9,8 @@ public enum Overlay {
     BODY_AXES("body-axes", "body axes (model x red, y green, z blue)"),
     GRATICULE("graticule", "latitude/longitude lines"),
     WIREFRAME("wireframe", "mesh edges"),
-    ZONES("zones", "landing zones, outlined and numbered");
+    ZONES("zones", "landing zones, outlined and numbered"),
+    SITES("sites", "landing sites, outlined and numbered");
 
     private final String cliName;
     private final String label;
@@ -36,6 +37,6 @@ public enum Overlay {
             }
         }
         throw new InputException("--overlay: unknown overlay '" + s + "' (use spin-axis, principal-axes, body-axes, "
-            + "graticule, wireframe or zones)");
+            + "graticule, wireframe, zones or sites)");
     }
 }

@@ -19,6 +19,8 @@ public enum Quantity {
     DYNAMIC_HEIGHT("dynamic-height", "dynamic height", "m", "dynamic_height_m", Kind.DIVERGING),
     /** 1 where the effective gravity points away from the surface (material would lift off). */
     LIFT_OFF("lift-off", "lift-off", "", "lift_off", Kind.CATEGORY),
+    /** Rank of the landing site whose disc holds a facet, 0 for none. */
+    SITES("sites", "landing site", "rank", "site", Kind.CATEGORY),
     /** Rank of the landing zone a facet belongs to, 0 for none. */
     ZONES("zones", "landing zone", "rank", "zone", Kind.CATEGORY),
     /** Plain surface. */

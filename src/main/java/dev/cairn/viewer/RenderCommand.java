@@ -37,7 +37,8 @@ public final class RenderCommand implements Callable<Integer> {
     Path survey;
 
     @Option(names = "--quantity", paramLabel = "NAME", defaultValue = "slope",
-        description = "slope, g-eff, potential-eff, dynamic-height, lift-off, zones or none (default: ${DEFAULT-VALUE}).")
+        description = "slope, g-eff, potential-eff, dynamic-height, lift-off, sites, zones or none "
+            + "(default: ${DEFAULT-VALUE}).")
     String quantity;
 
     @Option(names = "--view", paramLabel = "VIEW", defaultValue = "iso",
@@ -62,7 +63,7 @@ public final class RenderCommand implements Callable<Integer> {
     boolean flat;
 
     @Option(names = "--overlay", paramLabel = "NAME", split = ",", description = "Overlays: spin-axis, "
-        + "principal-axes, body-axes, graticule, wireframe, zones (comma-separated).")
+        + "principal-axes, body-axes, graticule, wireframe, zones, sites (comma-separated).")
     List<String> overlays;
 
     @Spec
@@ -90,7 +91,7 @@ public final class RenderCommand implements Callable<Integer> {
         SurveyData data = null;
         if (survey != null) {
             data = SurveyData.read(survey, model.modelPath(), nf);
-        } else if (q != Quantity.NONE || ov.contains(Overlay.ZONES)) {
+        } else if (q != Quantity.NONE || ov.contains(Overlay.ZONES) || ov.contains(Overlay.SITES)) {
             err.println("cairn: no --survey given: running the survey first ...");
             err.flush();
             data = SurveySource.run(model.modelPath(), ForwardedOptions.of(spec), nf);

@@ -37,6 +37,7 @@ public final class SurveyData {
     private final Map<String, double[]> columns;
     private final String modelSha256;
     private final List<Zone> zones;
+    private final List<Zone> sites;
 
     /**
      * A ranked landing zone: its rank (1 = best), the facets that belong to it, and the mean of their facet centroids
@@ -51,6 +52,8 @@ public final class SurveyData {
         this.columns = columns;
         this.modelSha256 = modelSha256;
         this.zones = zones;
+        this.sites = columns.containsKey("site") && columns.containsKey("cx_m")
+            ? zonesOf(columns.get("site"), columns, facets) : List.of();
     }
 
     /**
@@ -83,7 +86,9 @@ public final class SurveyData {
                 + modelFile + " (" + abbreviate(actual) + "): this survey belongs to another model");
         }
         Map<String, double[]> cols = readCsv(csv, modelFacets);
-        List<Zone> zones = zonesOf(cols.get("zone"), cols, modelFacets);
+        Path zonesCsv = dir.resolve("zones.csv");
+        List<Zone> zones = Files.isRegularFile(zonesCsv) ? readZones(zonesCsv, cols, modelFacets)
+            : zonesOf(cols.get("zone"), cols, modelFacets);
         return new SurveyData(dir, modelFacets, cols, actual, zones);
     }
 
@@ -289,6 +294,67 @@ public final class SurveyData {
         return List.copyOf(out);
     }
 
+    /**
+     * Every zone footprint from {@code zones.csv} (header {@code zone,facet,aim}; footprints may overlap, which the
+     * {@code zone} column of facets.csv cannot show). Ranks and facets are checked (integers, facet in range).
+     */
+    private static List<Zone> readZones(Path file, Map<String, double[]> cols, int n) {
+        String f = file.toString();
+        Map<Integer, List<Integer>> byRank = new java.util.TreeMap<>();
+        try (BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
+            String header = r.readLine();
+            if (header == null || !header.trim().startsWith("zone,facet")) {
+                throw InputException.at(f, 1, "expected the header 'zone,facet,aim'");
+            }
+            long lineNo = 1;
+            long rows = 0;
+            String line;
+            while ((line = r.readLine()) != null) {
+                lineNo++;
+                if (line.isBlank()) {
+                    continue;
+                }
+                String[] p = line.split(",", -1);
+                int zone;
+                int facet;
+                try {
+                    zone = Integer.parseInt(p[0].trim());
+                    facet = p.length > 1 ? Integer.parseInt(p[1].trim()) : -1;
+                } catch (NumberFormatException e) {
+                    throw InputException.at(f, lineNo, "zone and facet must be integers: '" + line + "'");
+                }
+                if (zone < 1 || facet < 0 || facet >= n) {
+                    throw InputException.at(f, lineNo, "zone " + zone + " or facet " + facet
+                        + " out of range (zone >= 1, facet 0.." + (n - 1) + ")");
+                }
+                if (++rows > 64L * n) {
+                    throw InputException.at(f, lineNo, "more than 64 zone memberships per facet");
+                }
+                byRank.computeIfAbsent(zone, k -> new ArrayList<>()).add(facet);
+            }
+        } catch (IOException e) {
+            throw new InputException(f + ": cannot read: " + e.getMessage(), e);
+        }
+        double[] cx = cols.get("cx_m");
+        double[] cy = cols.get("cy_m");
+        double[] cz = cols.get("cz_m");
+        List<Zone> out = new ArrayList<>();
+        for (Map.Entry<Integer, List<Integer>> e : byRank.entrySet()) {
+            int[] members = e.getValue().stream().mapToInt(Integer::intValue).sorted().distinct().toArray();
+            double sx = 0;
+            double sy = 0;
+            double sz = 0;
+            for (int q : members) {
+                sx += cx[q];
+                sy += cy[q];
+                sz += cz[q];
+            }
+            int k = members.length;
+            out.add(new Zone(e.getKey(), members, new double[] {sx / k, sy / k, sz / k}));
+        }
+        return List.copyOf(out);
+    }
+
     /** The survey directory. */
     public Path directory() {
         return dir;
@@ -323,8 +389,16 @@ public final class SurveyData {
         return c == null ? Double.NaN : c[facet];
     }
 
-    /** Ranked landing zones found in the {@code zone} column, by rank; centroid = mean of facet centroids (m). */
+    /**
+     * Ranked landing zones, by rank: every footprint from {@code zones.csv} when present, else from the {@code zone}
+     * column (best rank per facet); centroid = mean of facet centroids (m).
+     */
     public List<Zone> zones() {
         return zones;
+    }
+
+    /** Ranked landing sites from the {@code site} column (empty for surveys without it), by rank. */
+    public List<Zone> sites() {
+        return sites;
     }
 }

@@ -18,7 +18,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "view", mixinStandardHelpOptions = true,
     header = "Open the 3D viewer of the body coloured by a surveyed quantity.",
     description = {"Open the 3D viewer: the body coloured by slope, effective gravity, effective potential,",
-        "dynamic height, lift-off or landing zones; orbit, zoom, pan, preset views, overlays, click to read values.",
+        "dynamic height, lift-off, landing sites or zones; orbit, zoom, pan, preset views, overlays, click to read",
+        "values.",
         "Without --survey the survey runs in the background from the model's sidecar parameters.",
         "Caution: results must be verified independently before operational use; mission rules and the",
         "responsible flight-dynamics authority decide."})

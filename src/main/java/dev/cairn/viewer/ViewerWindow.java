@@ -257,7 +257,7 @@ public final class ViewerWindow {
 
     private void refreshLabels() {
         ZoneLabels.update(labels, body, body.node().getWidth(), body.node().getHeight(),
-            body.overlayShown(Overlay.ZONES));
+            body.overlayShown(Overlay.ZONES), body.overlayShown(Overlay.SITES));
     }
 
     private void recolour() {
@@ -300,8 +300,8 @@ public final class ViewerWindow {
             busy.setVisible(false);
             survey = t.getValue();
             body.setSurvey(survey);
-            status.setText("Survey: " + (dir != null ? dir : "computed") + ", " + survey.zones().size()
-                + " landing zones.");
+            status.setText("Survey: " + (dir != null ? dir : "computed") + ", " + survey.sites().size()
+                + " landing sites, " + survey.zones().size() + " landing zones.");
             if (quantity.getValue() == Quantity.NONE) {
                 quantity.setValue(Quantity.SLOPE);
             }

@@ -79,6 +79,8 @@ class SurveyCommandTest {
         assertTrue(stdout.contains("period 12600"), "spin from --spin-period overrides the sidecar: " + stdout);
         assertTrue(stdout.contains("Slope"));
         assertTrue(stdout.contains("Zones"));
+        assertTrue(stdout.indexOf("Sites") >= 0 && stdout.indexOf("Sites") < stdout.indexOf("Zones"),
+            "sites first: " + stdout);
         assertTrue(stdout.contains("Caution"));
     }
 
@@ -142,6 +144,18 @@ class SurveyCommandTest {
         }
         assertEquals(1.0, sum, SUM_TOL);
         assertTrue(j.get("zones").isArray());
+        assertEquals(j.get("site_count").asInt(), j.get("sites").size());
+        assertEquals(40.0, p.get("site_radius_m").asDouble(), 0.0, "site radius defaults to the zone radius");
+        for (JsonNode s : j.get("sites")) {
+            for (String k : new String[] {"rank", "score", "aim_facet", "aim_point_m", "lat_deg", "lon_deg", "zone",
+                "map_layer", "facet_count", "area_m2", "max_slope_deg", "mean_slope_deg", "roughness_deg",
+                "dynamic_height_range_m", "mean_g_eff_m_s2", "mean_escape_speed_m_s", "safe_area_fraction"}) {
+                assertNotNull(s.get(k), k);
+            }
+        }
+        assertEquals(0.0, j.get("map_layers").get("hidden_on_outer_maps_area_fraction").asDouble(), 0.0,
+            "an ellipsoid is star-shaped about its centre");
+        assertTrue(Files.isRegularFile(out.resolve("zones.csv")));
         assertEquals(j.get("zone_count").asInt(), j.get("zones").size());
         for (JsonNode z : j.get("zones")) {
             for (String k : new String[] {"rank", "score", "centroid_m", "lat_deg", "lon_deg", "area_m2",
@@ -274,6 +288,8 @@ class SurveyCommandTest {
         badOption("--threads", "--threads", "0");
         badOption("--spin-axis", "--spin-axis", "0,0,0");
         badOption("--hover-altitudes", "--hover-altitudes", "10,-1");
+        badOption("--site-radius", "--site-radius", "0");
+        badOption("--site-radius", "--site-radius", "NaN");
     }
 
     @Test

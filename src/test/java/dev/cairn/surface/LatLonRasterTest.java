@@ -59,6 +59,10 @@ class LatLonRasterTest {
                 assertTrue(insideCone(m, f, shift, d), "cell " + i + "," + j + " facet " + f);
             }
         }
+        assertEquals(1, r.layers(), "star-shaped about the centre: one crossing per ray");
+        for (int l : LatLonRaster.facetLayers(m, frame, 2)) {
+            assertEquals(1, l, "every facet on the outer layer");
+        }
         assertEquals(144, r.width());
         assertEquals(-180 + 1.25, r.lonDeg(0), 1e-12);
         assertEquals(90 - 1.25, r.latDeg(0), 1e-12);

@@ -45,6 +45,42 @@ class SurveyDataTest {
     }
 
     @Test
+    void zonesCsvGivesEveryOverlappingFootprint() throws IOException {
+        Path obj = fixture();
+        // zones 1 and 2 share facets 4 and 5, which the zone column (best rank per facet) cannot show
+        Files.writeString(tmp.resolve("s").resolve("zones.csv"), "zone,facet,aim\n1,0,1\n1,4,0\n1,5,0\n2,4,0\n"
+            + "2,5,1\n2,6,1\n");
+        SurveyData s = SurveyData.read(tmp.resolve("s"), obj, mesh.facetCount());
+        assertEquals(2, s.zones().size());
+        assertArrayEquals(new int[] {0, 4, 5}, s.zones().get(0).facets());
+        assertArrayEquals(new int[] {4, 5, 6}, s.zones().get(1).facets());
+        Files.writeString(tmp.resolve("s").resolve("zones.csv"), "zone,facet,aim\n1,0,1\n1," + mesh.facetCount()
+            + ",0\n");
+        InputException e = assertThrows(InputException.class,
+            () -> SurveyData.read(tmp.resolve("s"), obj, mesh.facetCount()));
+        assertTrue(e.getMessage().contains("zones.csv") && e.getMessage().contains("3"), e.getMessage());
+    }
+
+    @Test
+    void sitesComeFromTheSiteColumn() {
+        int n = 6;
+        double[] site = {0, 1, 1, 0, 2, 0};
+        double[] cx = {0, 1, 3, 0, 5, 0};
+        double[] zero = new double[n];
+        SurveyData s = SurveyData.ofColumns(java.util.Map.of("site", site, "cx_m", cx, "cy_m", zero, "cz_m", zero),
+            n);
+        assertEquals(2, s.sites().size());
+        assertArrayEquals(new int[] {1, 2}, s.sites().get(0).facets());
+        assertEquals(2.0, s.sites().get(0).centroid()[0], 0.0, "mean of the facet centroids");
+        assertArrayEquals(new int[] {4}, s.sites().get(1).facets());
+        FacetColouring.Result c = FacetColouring.colour(s, n, Quantity.SITES, ColourLimits.AUTO);
+        assertEquals(List.of("no site", "site 1", "site 2"),
+            c.legend().categories().stream().map(Legend.Swatch::label).toList());
+        assertEquals(c.argb()[1], c.argb()[2], "one colour per site");
+        assertTrue(c.argb()[1] != c.argb()[4] && c.argb()[0] != c.argb()[1]);
+    }
+
+    @Test
     void zonesAreCollectedByRankWithTheirCentroids() throws IOException {
         Path obj = fixture();
         SurveyData s = SurveyData.read(tmp.resolve("s"), obj, mesh.facetCount());

@@ -34,8 +34,8 @@ class SurveyViewsDisplayTest {
         int code = CairnMain.execute(new PrintWriter(new StringWriter()), new PrintWriter(err), "survey", obj.toString(),
             "--density", "2000", "--spin-period", "6h", "--out", out.toString(), "--views");
         assertEquals(0, code, err.toString());
-        for (String name : new String[] {"view-slope-iso.png", "view-slope-plusz.png", "view-zones-iso.png",
-            "view-g-eff-iso.png"}) {
+        for (String name : new String[] {"view-sites-iso.png", "view-slope-iso.png", "view-slope-plusz.png",
+            "view-zones-iso.png", "view-g-eff-iso.png"}) {
             Path png = out.resolve(name);
             assertTrue(Files.isRegularFile(png), name + " missing; stderr: " + err);
             BufferedImage img = ImageIO.read(png.toFile());
