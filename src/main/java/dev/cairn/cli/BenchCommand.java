@@ -1,6 +1,7 @@
 package dev.cairn.cli;
 
 import dev.cairn.gravity.BatchEvaluation;
+import dev.cairn.gravity.HierarchicalField;
 import dev.cairn.gravity.PolyhedronField;
 import dev.cairn.io.BodyModel;
 import dev.cairn.util.ParallelChunks;
@@ -37,6 +38,26 @@ public final class BenchCommand implements Callable<Integer> {
     @Option(names = "--mascons", paramLabel = "N", description = "Also time a tetrahedral mascon set of about N "
         + "point masses (0: skip; default ${DEFAULT-VALUE}).")
     int mascons = 20000;
+
+    @Option(names = "--fast-field", description = "Also benchmark the hierarchical field: build time, memory, "
+        + "throughput beside the exact sum, and measured error, per body and tolerance.")
+    boolean fastField;
+
+    @Option(names = "--lumpy-levels", split = ",", paramLabel = "L", description = "With --fast-field: also on "
+        + "invented lumpy icospheres of these levels (20*4^L facets; 6 = 81,920, 7 = 327,680, 8 = 1,310,720).")
+    int[] lumpyLevels = new int[0];
+
+    @Option(names = "--tolerances", split = ",", paramLabel = "REL", description = "With --fast-field: tolerances "
+        + "(default: 1e-6,1e-9,1e-12).")
+    double[] tolerances = {1e-6, 1e-9, 1e-12};
+
+    @Option(names = "--check-samples", paramLabel = "N", description = "With --fast-field: facet centroids compared "
+        + "with the exact sum (default: ${DEFAULT-VALUE}).")
+    int checkSamples = 1000;
+
+    @Option(names = "--survey-largest", description = "With --fast-field: also time a whole survey of the largest "
+        + "body at tolerance 1e-9.")
+    boolean surveyLargest;
 
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
@@ -77,6 +98,23 @@ public final class BenchCommand implements Callable<Integer> {
         }
         if (mascons > 0) {
             benchMascons(out, body, xyz, all);
+        }
+        if (fastField) {
+            for (int l : lumpyLevels) {
+                if (l < 1 || l > 9) {
+                    throw new dev.cairn.io.InputException("--lumpy-levels: levels 1 to 9, got " + l);
+                }
+            }
+            for (double t : tolerances) {
+                if (!(t >= HierarchicalField.MIN_TOLERANCE && t <= HierarchicalField.MAX_TOLERANCE)) {
+                    throw new dev.cairn.io.InputException("--tolerances: " + t + " is outside 1e-13 to 1e-2");
+                }
+            }
+            if (checkSamples < 1 || checkSamples > 100000) {
+                throw new dev.cairn.io.InputException("--check-samples: 1 to 100000, got " + checkSamples);
+            }
+            FastFieldBench.run(out, body.mesh(), body.name(), body.density(), lumpyLevels, tolerances, checkSamples,
+                all, surveyLargest);
         }
         out.flush();
         return 0;

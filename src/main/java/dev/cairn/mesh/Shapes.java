@@ -33,6 +33,40 @@ public final class Shapes {
     }
 
     /**
+     * An invented lumpy body for benchmarks: an icosphere of {@code level} (20·4^level facets) and radius
+     * {@code radius} on the axes 1 : 0.8 : 0.6, each vertex moved radially by a smooth seeded relief (a sum of eight
+     * random low-order waves, relative amplitude up to {@code amp}) so that neighbouring facets stay consistently
+     * oriented; star-shaped, closed and outward.
+     */
+    public static TriangleMesh lumpyIcosphere(int level, double radius, double amp, long seed) {
+        TriangleMesh s = icosphere(level, 1.0);
+        double[] xyz = s.xyz().clone();
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(seed);
+        double[][] waves = new double[8][5];
+        for (double[] w : waves) {
+            double z = 2 * rnd.nextDouble() - 1;
+            double ph = 2 * Math.PI * rnd.nextDouble();
+            double sn = Math.sqrt(1 - z * z);
+            w[0] = sn * Math.cos(ph);
+            w[1] = sn * Math.sin(ph);
+            w[2] = z;
+            w[3] = 1 + 5 * rnd.nextDouble(); // spatial frequency
+            w[4] = 2 * Math.PI * rnd.nextDouble(); // phase
+        }
+        for (int i = 0; i < xyz.length; i += 3) {
+            double h = 0;
+            for (double[] w : waves) {
+                h += Math.sin(w[3] * (w[0] * xyz[i] + w[1] * xyz[i + 1] + w[2] * xyz[i + 2]) + w[4]);
+            }
+            double f = radius * (1 + amp * h / waves.length);
+            xyz[i] *= f;
+            xyz[i + 1] *= 0.8 * f;
+            xyz[i + 2] *= 0.6 * f;
+        }
+        return new TriangleMesh(xyz, s.tri());
+    }
+
+    /**
      * An icosphere: the regular icosahedron with each facet split into 4, {@code level} times, vertices pushed onto
      * the sphere of radius {@code radius} about the origin. {@code 20·4^level} facets.
      */
