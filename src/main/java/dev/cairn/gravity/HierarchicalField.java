@@ -65,7 +65,22 @@ public final class HierarchicalField implements FieldModel {
     private final int size;
     private final int stride;
     private final FacetTree tree;
-    private final double[] near;
+    /** Per facet (tree order): unit normal and twice the area. */
+    private final double[] facetNormal;
+    /** Per facet (tree order): its 3 vertices and 3 edges (edge k from vertex k to k+1) as indices local to its leaf. */
+    private final int[] facetLocal;
+    /** Per node: its leaf number, or −1 for an internal node. */
+    private final int[] leafOf;
+    /** Per leaf l: its distinct vertices are leafVertex[leafVertexStart[l] ..], edges leafEdge[leafEdgeStart[l] ..]. */
+    private final int[] leafVertexStart;
+    private final int[] leafEdgeStart;
+    /** Leaf vertex coordinates (3 each), m. */
+    private final double[] leafVertex;
+    /** Leaf edges: local vertex indices (2 each) and 1/length. */
+    private final int[] leafEdge;
+    private final double[] leafEdgeInv;
+    private final int maxLeafVertices;
+    private final int maxLeafEdges;
     /** Per node: offset of its moments in {@link #moments}, or −1 (a leaf without moments is always evaluated exactly). */
     private final int[] momentOffset;
     private final double[] moments;
@@ -112,7 +127,98 @@ public final class HierarchicalField implements FieldModel {
         this.stride = 8 * size;
         this.facetCount = mesh.facetCount();
         this.tree = new FacetTree(mesh, leafSize);
-        this.near = nearRecords(mesh, tree.order());
+        double[] near = nearRecords(mesh, tree.order());
+        this.facetNormal = new double[4 * facetCount];
+        for (int i = 0; i < facetCount; i++) {
+            System.arraycopy(near, NEAR * i + 9, facetNormal, 4 * i, 4);
+        }
+        // leaf-local vertices and edges, so that each distance and edge logarithm is computed once per leaf
+        int nodeCount = tree.nodeCount();
+        leafOf = new int[nodeCount];
+        int leaves = 0;
+        for (int n = 0; n < nodeCount; n++) {
+            leafOf[n] = tree.isLeaf(n) ? leaves++ : -1;
+        }
+        leafVertexStart = new int[leaves + 1];
+        leafEdgeStart = new int[leaves + 1];
+        facetLocal = new int[6 * facetCount];
+        int[] tri = mesh.tri();
+        int[] order = tree.order();
+        int[] stamp = new int[mesh.vertexCount()];
+        int[] local = new int[mesh.vertexCount()];
+        java.util.Arrays.fill(stamp, -1);
+        int[] lvIdx = new int[3 * facetCount];
+        int[] ledge = new int[6 * facetCount];
+        int nvTot = 0;
+        int neTot = 0;
+        int maxV = 0;
+        int maxE = 0;
+        java.util.HashMap<Long, Integer> edgeIds = new java.util.HashMap<>();
+        for (int n = 0; n < nodeCount; n++) {
+            int l = leafOf[n];
+            if (l < 0) {
+                continue;
+            }
+            leafVertexStart[l] = nvTot;
+            leafEdgeStart[l] = neTot;
+            edgeIds.clear();
+            int nv = 0;
+            int ne = 0;
+            for (int i = tree.start(n); i < tree.end(n); i++) {
+                int f = order[i];
+                int[] lv3 = new int[3];
+                for (int k = 0; k < 3; k++) {
+                    int v = tri[3 * f + k];
+                    if (stamp[v] != l) {
+                        stamp[v] = l;
+                        local[v] = nv;
+                        lvIdx[nvTot + nv] = v;
+                        nv++;
+                    }
+                    lv3[k] = local[v];
+                    facetLocal[6 * i + k] = local[v];
+                }
+                for (int k = 0; k < 3; k++) {
+                    int a = lv3[k];
+                    int b = lv3[(k + 1) % 3];
+                    long key = (long) Math.min(a, b) << 32 | Math.max(a, b);
+                    Integer id = edgeIds.get(key);
+                    if (id == null) {
+                        id = ne++;
+                        edgeIds.put(key, id);
+                        ledge[2 * (neTot + id)] = a;
+                        ledge[2 * (neTot + id) + 1] = b;
+                    }
+                    facetLocal[6 * i + 3 + k] = id;
+                }
+            }
+            nvTot += nv;
+            neTot += ne;
+            maxV = Math.max(maxV, nv);
+            maxE = Math.max(maxE, ne);
+        }
+        leafVertexStart[leaves] = nvTot;
+        leafEdgeStart[leaves] = neTot;
+        maxLeafVertices = maxV;
+        maxLeafEdges = maxE;
+        double[] xyz = mesh.xyz();
+        leafVertex = new double[3 * nvTot];
+        for (int j = 0; j < nvTot; j++) {
+            System.arraycopy(xyz, 3 * lvIdx[j], leafVertex, 3 * j, 3);
+        }
+        leafEdge = java.util.Arrays.copyOf(ledge, 2 * neTot);
+        leafEdgeInv = new double[neTot];
+        for (int l = 0; l < leaves; l++) {
+            int v0 = leafVertexStart[l];
+            for (int k = leafEdgeStart[l]; k < leafEdgeStart[l + 1]; k++) {
+                int a = 3 * (v0 + leafEdge[2 * k]);
+                int b = 3 * (v0 + leafEdge[2 * k + 1]);
+                double dx = leafVertex[b] - leafVertex[a];
+                double dy = leafVertex[b + 1] - leafVertex[a + 1];
+                double dz = leafVertex[b + 2] - leafVertex[a + 2];
+                leafEdgeInv[k] = 1 / Math.sqrt(dx * dx + dy * dy + dz * dz);
+            }
+        }
         int nodes = tree.nodeCount();
         boolean leafMoments = nodes == 1 || 8.0 * stride * nodes / facetCount <= MOMENT_BUDGET;
         momentOffset = new int[nodes];
@@ -121,7 +227,7 @@ public final class HierarchicalField implements FieldModel {
             momentOffset[n] = leafMoments || !tree.isLeaf(n) ? Math.multiplyExact(count++, stride) : -1;
         }
         this.moments = new double[Math.multiplyExact(count, stride)];
-        double[] rootRaw = buildMoments(Math.max(1, threads));
+        double[] rootRaw = buildMoments(Math.max(1, threads), near);
         // the whole body's volume moments about the root's centre: ∫_V conj R dV = W_n/(n+3) (cone formula,
         // BodyExpansion), made dimensionless by a³
         double a = tree.radius(0);
@@ -223,7 +329,7 @@ public final class HierarchicalField implements FieldModel {
      * Nodes are independent within one depth, so the work runs in parallel depth by depth, deepest first; each
      * node's sums are formed in a fixed order, so results do not depend on the thread count.
      */
-    private double[] buildMoments(int threads) {
+    private double[] buildMoments(int threads, double[] near) {
         int nodes = tree.nodeCount();
         TriangleQuadrature rule = new TriangleQuadrature(p);
         int[] depth = new int[nodes];
@@ -263,7 +369,7 @@ public final class HierarchicalField implements FieldModel {
                         if (tree.isLeaf(node) || momentOffset[tree.left(node)] < 0
                             || momentOffset[tree.right(node)] < 0) {
                             for (int f = tree.start(node); f < tree.end(node); f++) {
-                                facetMoments(node, f, rule, s[0], s[1], s[5], s[6]);
+                                facetMoments(node, f, near, rule, s[0], s[1], s[5], s[6]);
                             }
                         } else {
                             translateChild(node, tree.left(node), s);
@@ -321,7 +427,8 @@ public final class HierarchicalField implements FieldModel {
     }
 
     /** Adds the raw moments of facet {@code i} (tree order) about {@code node}'s centre, scaled by its radius. */
-    private void facetMoments(int node, int i, TriangleQuadrature rule, double[] tr, double[] ti, double[] gr,
+    private void facetMoments(int node, int i, double[] near, TriangleQuadrature rule, double[] tr, double[] ti,
+                              double[] gr,
                               double[] gi) {
         double a = tree.radius(node);
         double cx = tree.centreX(node);
@@ -417,7 +524,8 @@ public final class HierarchicalField implements FieldModel {
 
     /** Bytes held by this model per facet (tree, near-field records, moments; the exact fallback not included). */
     public double bytesPerFacet() {
-        long b = 8L * near.length + 8L * moments.length + 4L * facetCount + tree.nodeCount() * (4L * 4 + 4 * 8);
+        long b = 8L * facetNormal.length + 4L * facetLocal.length + 8L * leafVertex.length + 4L * leafEdge.length
+            + 8L * leafEdgeInv.length + 8L * moments.length + 4L * facetCount + tree.nodeCount() * (5L * 4 + 4 * 8);
         return (double) b / facetCount;
     }
 
@@ -501,6 +609,9 @@ public final class HierarchicalField implements FieldModel {
         private final double[] ji = new double[jr.length];
         /** Gradient tensor sums: row i = component of n (near) or of V (far), column j = derivative. */
         private final double[] tn = new double[9];
+        /** Leaf scratch: vertex offsets from the point and their lengths; edge logarithms. */
+        private final double[] rv = new double[4 * maxLeafVertices];
+        private final double[] lg = new double[maxLeafEdges];
         /** Running sums for the current point: V (3), U sum, Σω, tail estimates of V and U. */
         private double vx;
         private double vy;
@@ -546,9 +657,7 @@ public final class HierarchicalField implements FieldModel {
                     DBG_FAR.increment();
                 } else if (tree.isLeaf(node)) {
                     DBG_NEAR.add(tree.end(node) - tree.start(node));
-                    for (int i = tree.start(node); i < tree.end(node); i++) {
-                        nearFacet(i, x, y, z, gradient);
-                    }
+                    nearLeaf(node, x, y, z, gradient);
                 } else {
                     stack[sp++] = tree.right(node);
                     stack[sp++] = tree.left(node);
@@ -602,8 +711,10 @@ public final class HierarchicalField implements FieldModel {
             omega = 0;
             onSurface = false;
             java.util.Arrays.fill(tn, 0);
-            for (int i = 0; i < facetCount; i++) {
-                nearFacet(i, x, y, z, gradient);
+            for (int n = 0; n < tree.nodeCount(); n++) {
+                if (tree.isLeaf(n)) {
+                    nearLeaf(n, x, y, z, gradient);
+                }
             }
             write(out, o, -gRho * vx, -gRho * vy, -gRho * vz, 0.5 * gRho * uSum, -gRho * omega, gradient,
                 onSurface ? Location.SURFACE : omega > 2 * Math.PI ? Location.INSIDE : Location.OUTSIDE);
@@ -741,32 +852,67 @@ public final class HierarchicalField implements FieldModel {
             return sum;
         }
 
-        /** Exact single-layer terms of facet {@code i} (tree order) at (x, y, z). */
-        private void nearFacet(int i, double x, double y, double z, boolean gradient) {
-            final double[] nr = near;
-            int fo = NEAR * i;
-            double r1x = nr[fo] - x;
-            double r1y = nr[fo + 1] - y;
-            double r1z = nr[fo + 2] - z;
-            double r2x = nr[fo + 3] - x;
-            double r2y = nr[fo + 4] - y;
-            double r2z = nr[fo + 5] - z;
-            double r3x = nr[fo + 6] - x;
-            double r3y = nr[fo + 7] - y;
-            double r3z = nr[fo + 8] - z;
-            double fnx = nr[fo + 9];
-            double fny = nr[fo + 10];
-            double fnz = nr[fo + 11];
-            double n1 = Math.sqrt(r1x * r1x + r1y * r1y + r1z * r1z);
-            double n2 = Math.sqrt(r2x * r2x + r2y * r2y + r2z * r2z);
-            double n3 = Math.sqrt(r3x * r3x + r3y * r3y + r3z * r3z);
+        /** Exact single-layer terms of a leaf's facets at (x, y, z): distances and edge logs once per leaf. */
+        private void nearLeaf(int node, double x, double y, double z, boolean gradient) {
+            int l = leafOf[node];
+            int v0 = leafVertexStart[l];
+            int nv = leafVertexStart[l + 1] - v0;
+            for (int j = 0; j < nv; j++) {
+                int q = 3 * (v0 + j);
+                double rx = leafVertex[q] - x;
+                double ry = leafVertex[q + 1] - y;
+                double rz = leafVertex[q + 2] - z;
+                rv[4 * j] = rx;
+                rv[4 * j + 1] = ry;
+                rv[4 * j + 2] = rz;
+                rv[4 * j + 3] = Math.sqrt(rx * rx + ry * ry + rz * rz);
+            }
+            int e0 = leafEdgeStart[l];
+            int ne = leafEdgeStart[l + 1] - e0;
+            for (int k = 0; k < ne; k++) {
+                int a = 4 * leafEdge[2 * (e0 + k)];
+                int b = 4 * leafEdge[2 * (e0 + k) + 1];
+                double dot = rv[a] * rv[b] + rv[a + 1] * rv[b + 1] + rv[a + 2] * rv[b + 2];
+                lg[k] = edgeLog(rv[a], rv[a + 1], rv[a + 2], rv[b], rv[b + 1], rv[b + 2], rv[a + 3], rv[b + 3], dot,
+                    leafEdgeInv[e0 + k]);
+            }
+            for (int i = tree.start(node); i < tree.end(node); i++) {
+                nearFacet(i, e0, gradient);
+            }
+        }
+
+        /** Exact single-layer terms of facet {@code i} (tree order) from its leaf's scratch values. */
+        private void nearFacet(int i, int e0, boolean gradient) {
+            int q = 6 * i;
+            int k1 = 4 * facetLocal[q];
+            int k2 = 4 * facetLocal[q + 1];
+            int k3 = 4 * facetLocal[q + 2];
+            double r1x = rv[k1];
+            double r1y = rv[k1 + 1];
+            double r1z = rv[k1 + 2];
+            double r2x = rv[k2];
+            double r2y = rv[k2 + 1];
+            double r2z = rv[k2 + 2];
+            double r3x = rv[k3];
+            double r3y = rv[k3 + 1];
+            double r3z = rv[k3 + 2];
+            int fo = 4 * i;
+            double fnx = facetNormal[fo];
+            double fny = facetNormal[fo + 1];
+            double fnz = facetNormal[fo + 2];
+            double n1 = rv[k1 + 3];
+            double n2 = rv[k2 + 3];
+            double n3 = rv[k3 + 3];
             double h = fnx * r1x + fny * r1y + fnz * r1z;
             double d12 = r1x * r2x + r1y * r2y + r1z * r2z;
             double d23 = r2x * r3x + r2y * r3y + r2z * r3z;
             double d31 = r3x * r1x + r3y * r1y + r3z * r1z;
-            double le1 = edgeLog(r1x, r1y, r1z, r2x, r2y, r2z, n1, n2, d12, nr[fo + 13]);
-            double le2 = edgeLog(r2x, r2y, r2z, r3x, r3y, r3z, n2, n3, d23, nr[fo + 14]);
-            double le3 = edgeLog(r3x, r3y, r3z, r1x, r1y, r1z, n3, n1, d31, nr[fo + 15]);
+            int ea = e0 + facetLocal[q + 3];
+            int eb = e0 + facetLocal[q + 4];
+            int ec = e0 + facetLocal[q + 5];
+            double le1 = lg[ea - e0];
+            double le2 = lg[eb - e0];
+            double le3 = lg[ec - e0];
             // in-plane outward edge normals m = (d × n)/e
             double e1x = r2x - r1x;
             double e1y = r2y - r1y;
@@ -777,9 +923,9 @@ public final class HierarchicalField implements FieldModel {
             double e3x = r1x - r3x;
             double e3y = r1y - r3y;
             double e3z = r1z - r3z;
-            double c1 = le1 * nr[fo + 13];
-            double c2 = le2 * nr[fo + 14];
-            double c3 = le3 * nr[fo + 15];
+            double c1 = le1 * leafEdgeInv[ea];
+            double c2 = le2 * leafEdgeInv[eb];
+            double c3 = le3 * leafEdgeInv[ec];
             // Σ m_k L_k = Σ (d_k × n) L_k/e_k = (Σ c_k d_k) × n
             double sx = c1 * e1x + c2 * e2x + c3 * e3x;
             double sy = c1 * e1y + c2 * e2y + c3 * e3y;
@@ -792,7 +938,7 @@ public final class HierarchicalField implements FieldModel {
             double t2 = fnx * (r2y * e2z - r2z * e2y) + fny * (r2z * e2x - r2x * e2z) + fnz * (r2x * e2y - r2y * e2x);
             double t3 = fnx * (r3y * e3z - r3z * e3y) + fny * (r3z * e3x - r3x * e3z) + fnz * (r3x * e3y - r3y * e3x);
             double sf = t1 * c1 + t2 * c2 + t3 * c3;
-            double num = nr[fo + 12] * h;
+            double num = facetNormal[fo + 3] * h;
             double prod = n1 * n2 * n3;
             double den = prod + n1 * d23 + n2 * d31 + n3 * d12;
             double om = 0;
