@@ -79,6 +79,13 @@ public final class HierarchicalField implements FieldModel {
     /** Leaf edges: local vertex indices (2 each) and 1/length. */
     private final int[] leafEdge;
     private final double[] leafEdgeInv;
+    /**
+     * Per leaf edge, 6 values: for an edge whose two facets are both in the leaf, the symmetric Werner–Scheeres dyad
+     * E = n_A m_Aᵀ + n_B m_Bᵀ (xx, xy, xz, yy, yz, zz); for an edge with one facet in the leaf, that facet's unit normal
+     * n and in-plane outward edge normal m (its term is n (m·r) L). {@link #leafEdgeShared} tells which.
+     */
+    private final double[] leafEdgeDyad;
+    private final boolean[] leafEdgeShared;
     private final int maxLeafVertices;
     private final int maxLeafEdges;
     /** Per node: offset of its moments in {@link #moments}, or −1 (a leaf without moments is always evaluated exactly). */
@@ -217,6 +224,60 @@ public final class HierarchicalField implements FieldModel {
                 double dy = leafVertex[b + 1] - leafVertex[a + 1];
                 double dz = leafVertex[b + 2] - leafVertex[a + 2];
                 leafEdgeInv[k] = 1 / Math.sqrt(dx * dx + dy * dy + dz * dz);
+            }
+        }
+        leafEdgeDyad = new double[6 * neTot];
+        leafEdgeShared = new boolean[neTot];
+        int[] uses = new int[neTot];
+        for (int n = 0; n < nodeCount; n++) {
+            int l = leafOf[n];
+            if (l < 0) {
+                continue;
+            }
+            int v0 = leafVertexStart[l];
+            int e0 = leafEdgeStart[l];
+            for (int i = tree.start(n); i < tree.end(n); i++) {
+                double fx = near[NEAR * i + 9];
+                double fy = near[NEAR * i + 10];
+                double fz = near[NEAR * i + 11];
+                for (int k = 0; k < 3; k++) {
+                    int a = 3 * (v0 + facetLocal[6 * i + k]);
+                    int b = 3 * (v0 + facetLocal[6 * i + (k + 1) % 3]);
+                    int e = e0 + facetLocal[6 * i + 3 + k];
+                    double dx = leafVertex[b] - leafVertex[a];
+                    double dy = leafVertex[b + 1] - leafVertex[a + 1];
+                    double dz = leafVertex[b + 2] - leafVertex[a + 2];
+                    double inv = leafEdgeInv[e];
+                    double mx = (dy * fz - dz * fy) * inv;
+                    double my = (dz * fx - dx * fz) * inv;
+                    double mz = (dx * fy - dy * fx) * inv;
+                    double[] d = leafEdgeDyad;
+                    int o = 6 * e;
+                    if (uses[e] == 0) {
+                        d[o] = fx;
+                        d[o + 1] = fy;
+                        d[o + 2] = fz;
+                        d[o + 3] = mx;
+                        d[o + 4] = my;
+                        d[o + 5] = mz;
+                    } else {
+                        // second facet: the sum of both n mᵀ is symmetric (Werner & Scheeres 1997)
+                        double ax = d[o];
+                        double ay = d[o + 1];
+                        double az = d[o + 2];
+                        double bx = d[o + 3];
+                        double by = d[o + 4];
+                        double bz = d[o + 5];
+                        d[o] = ax * bx + fx * mx;
+                        d[o + 1] = 0.5 * (ax * by + ay * bx + fx * my + fy * mx);
+                        d[o + 2] = 0.5 * (ax * bz + az * bx + fx * mz + fz * mx);
+                        d[o + 3] = ay * by + fy * my;
+                        d[o + 4] = 0.5 * (ay * bz + az * by + fy * mz + fz * my);
+                        d[o + 5] = az * bz + fz * mz;
+                        leafEdgeShared[e] = true;
+                    }
+                    uses[e]++;
+                }
             }
         }
         int nodes = tree.nodeCount();
@@ -393,6 +454,21 @@ public final class HierarchicalField implements FieldModel {
                 }
             }
         }
+        // interleave for evaluation: coefficient k of density d at o + 8k + 2d (re) and + 1 (im), one stream
+        double[] block = new double[stride];
+        for (int n = 0; n < nodes; n++) {
+            int o = momentOffset[n];
+            if (o < 0) {
+                continue;
+            }
+            System.arraycopy(moments, o, block, 0, stride);
+            for (int d = 0; d < 4; d++) {
+                for (int k = 0; k < size; k++) {
+                    moments[o + 8 * k + 2 * d] = block[2 * d * size + k];
+                    moments[o + 8 * k + 2 * d + 1] = block[(2 * d + 1) * size + k];
+                }
+            }
+        }
         return rootRaw;
     }
 
@@ -525,7 +601,7 @@ public final class HierarchicalField implements FieldModel {
     /** Bytes held by this model per facet (tree, near-field records, moments; the exact fallback not included). */
     public double bytesPerFacet() {
         long b = 8L * facetNormal.length + 4L * facetLocal.length + 8L * leafVertex.length + 4L * leafEdge.length
-            + 8L * leafEdgeInv.length + 8L * moments.length + 4L * facetCount + tree.nodeCount() * (5L * 4 + 4 * 8);
+            + 8L * leafEdgeInv.length + 8L * leafEdgeDyad.length + leafEdgeShared.length + 8L * moments.length + 4L * facetCount + tree.nodeCount() * (5L * 4 + 4 * 8);
         return (double) b / facetCount;
     }
 
@@ -611,7 +687,6 @@ public final class HierarchicalField implements FieldModel {
         private final double[] tn = new double[9];
         /** Leaf scratch: vertex offsets from the point and their lengths; edge logarithms. */
         private final double[] rv = new double[4 * maxLeafVertices];
-        private final double[] lg = new double[maxLeafEdges];
         /** Running sums for the current point: V (3), U sum, Σω, tail estimates of V and U. */
         private double vx;
         private double vy;
@@ -654,9 +729,9 @@ public final class HierarchicalField implements FieldModel {
                 if (a * a <= theta2 * r2 && momentOffset[node] >= 0) {
                     farNodes[nFar] = node;
                     farDegree[nFar++] = far(node, a, dx, dy, dz, r2, gradient);
-                    DBG_FAR.increment();
+
                 } else if (tree.isLeaf(node)) {
-                    DBG_NEAR.add(tree.end(node) - tree.start(node));
+
                     nearLeaf(node, x, y, z, gradient);
                 } else {
                     stack[sp++] = tree.right(node);
@@ -753,7 +828,9 @@ public final class HierarchicalField implements FieldModel {
             double q = a * invR;
             int deg = Math.max(2, Math.min(p, (int) Math.ceil(logThetaP1 / Math.log(q)) - 1));
             double s = a / r2;
-            SolidHarmonics.irregularScaled(s * dx, s * dy, s * dz, a * a / r2, deg + 1, jr, ji);
+            // degree deg + 1 for derivatives (tensor); the classification sum needs CLASSIFY_DEGREE + 1
+            int jdeg = gradient ? deg + 1 : Math.max(deg, Math.min(deg, CLASSIFY_DEGREE) + 1);
+            SolidHarmonics.irregularScaled(s * dx, s * dy, s * dz, a * a / r2, jdeg, jr, ji);
             int mo = momentOffset[node];
             int last = SolidHarmonics.index(deg, 0);
             int lastPrev = SolidHarmonics.index(deg - 1, 0);
@@ -765,10 +842,11 @@ public final class HierarchicalField implements FieldModel {
             for (int k = 0; k < lastPrev; k++) {
                 double re = jr[k];
                 double im = ji[k];
-                d0 += mom[mo + k] * re - mom[mo + size + k] * im;
-                d1 += mom[mo + 2 * size + k] * re - mom[mo + 3 * size + k] * im;
-                d2 += mom[mo + 4 * size + k] * re - mom[mo + 5 * size + k] * im;
-                d3 += mom[mo + 6 * size + k] * re - mom[mo + 7 * size + k] * im;
+                int c = mo + 8 * k;
+                d0 += mom[c] * re - mom[c + 1] * im;
+                d1 += mom[c + 2] * re - mom[c + 3] * im;
+                d2 += mom[c + 4] * re - mom[c + 5] * im;
+                d3 += mom[c + 6] * re - mom[c + 7] * im;
             }
             double k0 = 0;
             double k1 = 0;
@@ -777,10 +855,11 @@ public final class HierarchicalField implements FieldModel {
             for (int k = lastPrev; k < last; k++) {
                 double re = jr[k];
                 double im = ji[k];
-                k0 += mom[mo + k] * re - mom[mo + size + k] * im;
-                k1 += mom[mo + 2 * size + k] * re - mom[mo + 3 * size + k] * im;
-                k2 += mom[mo + 4 * size + k] * re - mom[mo + 5 * size + k] * im;
-                k3 += mom[mo + 6 * size + k] * re - mom[mo + 7 * size + k] * im;
+                int c = mo + 8 * k;
+                k0 += mom[c] * re - mom[c + 1] * im;
+                k1 += mom[c + 2] * re - mom[c + 3] * im;
+                k2 += mom[c + 4] * re - mom[c + 5] * im;
+                k3 += mom[c + 6] * re - mom[c + 7] * im;
             }
             double l0 = 0;
             double l1 = 0;
@@ -789,10 +868,11 @@ public final class HierarchicalField implements FieldModel {
             for (int k = last; k < end; k++) {
                 double re = jr[k];
                 double im = ji[k];
-                l0 += mom[mo + k] * re - mom[mo + size + k] * im;
-                l1 += mom[mo + 2 * size + k] * re - mom[mo + 3 * size + k] * im;
-                l2 += mom[mo + 4 * size + k] * re - mom[mo + 5 * size + k] * im;
-                l3 += mom[mo + 6 * size + k] * re - mom[mo + 7 * size + k] * im;
+                int c = mo + 8 * k;
+                l0 += mom[c] * re - mom[c + 1] * im;
+                l1 += mom[c + 2] * re - mom[c + 3] * im;
+                l2 += mom[c + 4] * re - mom[c + 5] * im;
+                l3 += mom[c + 6] * re - mom[c + 7] * im;
             }
             double nx = (d0 + k0 + l0) * invR;
             double ny = (d1 + k1 + l1) * invR;
@@ -827,12 +907,13 @@ public final class HierarchicalField implements FieldModel {
                 int t = SolidHarmonics.index(n + 1, 0);
                 for (int m = 0; m <= n; m++) {
                     double w = m == 0 ? 1 : 0.5; // stored moments carry ×2 for m ≥ 1
-                    double xr = w * moments[mo + b + m];
-                    double xi = w * moments[mo + size + b + m];
-                    double yr = w * moments[mo + 2 * size + b + m];
-                    double yi = w * moments[mo + 3 * size + b + m];
-                    double zr = w * moments[mo + 4 * size + b + m];
-                    double zi = w * moments[mo + 5 * size + b + m];
+                    int c = mo + 8 * (b + m);
+                    double xr = w * moments[c];
+                    double xi = w * moments[c + 1];
+                    double yr = w * moments[c + 2];
+                    double yi = w * moments[c + 3];
+                    double zr = w * moments[c + 4];
+                    double zi = w * moments[c + 5];
                     double upr = jr[t + m + 1];
                     double upi = ji[t + m + 1];
                     double cz = -(zr * jr[t + m] - zi * ji[t + m]);
@@ -852,11 +933,15 @@ public final class HierarchicalField implements FieldModel {
             return sum;
         }
 
-        /** Exact single-layer terms of a leaf's facets at (x, y, z): distances and edge logs once per leaf. */
+        /**
+         * Exact terms of a leaf's facets at (x, y, z): vertex distances once, then each edge once (both facets' terms
+         * together through the dyad E where both are in the leaf), then each facet's solid-angle term.
+         */
         private void nearLeaf(int node, double x, double y, double z, boolean gradient) {
             int l = leafOf[node];
             int v0 = leafVertexStart[l];
             int nv = leafVertexStart[l + 1] - v0;
+            final double[] rv = this.rv;
             for (int j = 0; j < nv; j++) {
                 int q = 3 * (v0 + j);
                 double rx = leafVertex[q] - x;
@@ -868,21 +953,78 @@ public final class HierarchicalField implements FieldModel {
                 rv[4 * j + 3] = Math.sqrt(rx * rx + ry * ry + rz * rz);
             }
             int e0 = leafEdgeStart[l];
-            int ne = leafEdgeStart[l + 1] - e0;
-            for (int k = 0; k < ne; k++) {
-                int a = 4 * leafEdge[2 * (e0 + k)];
-                int b = 4 * leafEdge[2 * (e0 + k) + 1];
-                double dot = rv[a] * rv[b] + rv[a + 1] * rv[b + 1] + rv[a + 2] * rv[b + 2];
-                lg[k] = edgeLog(rv[a], rv[a + 1], rv[a + 2], rv[b], rv[b + 1], rv[b + 2], rv[a + 3], rv[b + 3], dot,
-                    leafEdgeInv[e0 + k]);
+            int e1 = leafEdgeStart[l + 1];
+            for (int e = e0; e < e1; e++) {
+                int a = 4 * leafEdge[2 * e];
+                int b = 4 * leafEdge[2 * e + 1];
+                double ax = rv[a];
+                double ay = rv[a + 1];
+                double az = rv[a + 2];
+                double dot = ax * rv[b] + ay * rv[b + 1] + az * rv[b + 2];
+                double le = edgeLog(ax, ay, az, rv[b], rv[b + 1], rv[b + 2], rv[a + 3], rv[b + 3], dot, leafEdgeInv[e]);
+                if (le == 0) {
+                    continue; // on the edge or at its ends: the term's limit is 0
+                }
+                int o = 6 * e;
+                double[] d = leafEdgeDyad;
+                if (leafEdgeShared[e]) {
+                    double exx = d[o];
+                    double exy = d[o + 1];
+                    double exz = d[o + 2];
+                    double eyy = d[o + 3];
+                    double eyz = d[o + 4];
+                    double ezz = d[o + 5];
+                    double erx = exx * ax + exy * ay + exz * az;
+                    double ery = exy * ax + eyy * ay + eyz * az;
+                    double erz = exz * ax + eyz * ay + ezz * az;
+                    vx += erx * le;
+                    vy += ery * le;
+                    vz += erz * le;
+                    uSum += (ax * erx + ay * ery + az * erz) * le;
+                    if (gradient) {
+                        tn[0] += exx * le;
+                        tn[1] += exy * le;
+                        tn[2] += exz * le;
+                        tn[3] += exy * le;
+                        tn[4] += eyy * le;
+                        tn[5] += eyz * le;
+                        tn[6] += exz * le;
+                        tn[7] += eyz * le;
+                        tn[8] += ezz * le;
+                    }
+                } else {
+                    double nx = d[o];
+                    double ny = d[o + 1];
+                    double nz = d[o + 2];
+                    double mx = d[o + 3];
+                    double my = d[o + 4];
+                    double mz = d[o + 5];
+                    double mrl = (mx * ax + my * ay + mz * az) * le;
+                    vx += nx * mrl;
+                    vy += ny * mrl;
+                    vz += nz * mrl;
+                    uSum += (nx * ax + ny * ay + nz * az) * mrl;
+                    if (gradient) {
+                        tn[0] += nx * mx * le;
+                        tn[1] += nx * my * le;
+                        tn[2] += nx * mz * le;
+                        tn[3] += ny * mx * le;
+                        tn[4] += ny * my * le;
+                        tn[5] += ny * mz * le;
+                        tn[6] += nz * mx * le;
+                        tn[7] += nz * my * le;
+                        tn[8] += nz * mz * le;
+                    }
+                }
             }
             for (int i = tree.start(node); i < tree.end(node); i++) {
-                nearFacet(i, e0, gradient);
+                nearFacet(i, gradient);
             }
         }
 
-        /** Exact single-layer terms of facet {@code i} (tree order) from its leaf's scratch values. */
-        private void nearFacet(int i, int e0, boolean gradient) {
+        /** The solid-angle term −n_f h_f ω_f of facet {@code i} (tree order), from its leaf's vertex offsets. */
+        private void nearFacet(int i, boolean gradient) {
+            final double[] rv = this.rv;
             int q = 6 * i;
             int k1 = 4 * facetLocal[q];
             int k2 = 4 * facetLocal[q + 1];
@@ -896,78 +1038,40 @@ public final class HierarchicalField implements FieldModel {
             double r3x = rv[k3];
             double r3y = rv[k3 + 1];
             double r3z = rv[k3 + 2];
+            double n1 = rv[k1 + 3];
+            double n2 = rv[k2 + 3];
+            double n3 = rv[k3 + 3];
             int fo = 4 * i;
             double fnx = facetNormal[fo];
             double fny = facetNormal[fo + 1];
             double fnz = facetNormal[fo + 2];
-            double n1 = rv[k1 + 3];
-            double n2 = rv[k2 + 3];
-            double n3 = rv[k3 + 3];
             double h = fnx * r1x + fny * r1y + fnz * r1z;
-            double d12 = r1x * r2x + r1y * r2y + r1z * r2z;
-            double d23 = r2x * r3x + r2y * r3y + r2z * r3z;
-            double d31 = r3x * r1x + r3y * r1y + r3z * r1z;
-            int ea = e0 + facetLocal[q + 3];
-            int eb = e0 + facetLocal[q + 4];
-            int ec = e0 + facetLocal[q + 5];
-            double le1 = lg[ea - e0];
-            double le2 = lg[eb - e0];
-            double le3 = lg[ec - e0];
-            // in-plane outward edge normals m = (d × n)/e
-            double e1x = r2x - r1x;
-            double e1y = r2y - r1y;
-            double e1z = r2z - r1z;
-            double e2x = r3x - r2x;
-            double e2y = r3y - r2y;
-            double e2z = r3z - r2z;
-            double e3x = r1x - r3x;
-            double e3y = r1y - r3y;
-            double e3z = r1z - r3z;
-            double c1 = le1 * leafEdgeInv[ea];
-            double c2 = le2 * leafEdgeInv[eb];
-            double c3 = le3 * leafEdgeInv[ec];
-            // Σ m_k L_k = Σ (d_k × n) L_k/e_k = (Σ c_k d_k) × n
-            double sx = c1 * e1x + c2 * e2x + c3 * e3x;
-            double sy = c1 * e1y + c2 * e2y + c3 * e3y;
-            double sz = c1 * e1z + c2 * e2z + c3 * e3z;
-            double mlx = sy * fnz - sz * fny;
-            double mly = sz * fnx - sx * fnz;
-            double mlz = sx * fny - sy * fnx;
-            // Σ (m_k·r_k) L_k, r_k the start vertex of edge k: (d_k × n)·r_k = n·(r_k × d_k)
-            double t1 = fnx * (r1y * e1z - r1z * e1y) + fny * (r1z * e1x - r1x * e1z) + fnz * (r1x * e1y - r1y * e1x);
-            double t2 = fnx * (r2y * e2z - r2z * e2y) + fny * (r2z * e2x - r2x * e2z) + fnz * (r2x * e2y - r2y * e2x);
-            double t3 = fnx * (r3y * e3z - r3z * e3y) + fny * (r3z * e3x - r3x * e3z) + fnz * (r3x * e3y - r3y * e3x);
-            double sf = t1 * c1 + t2 * c2 + t3 * c3;
             double num = facetNormal[fo + 3] * h;
             double prod = n1 * n2 * n3;
-            double den = prod + n1 * d23 + n2 * d31 + n3 * d12;
-            double om = 0;
+            double den = prod + n1 * (r2x * r3x + r2y * r3y + r2z * r3z) + n2 * (r3x * r1x + r3y * r1y + r3z * r1z)
+                + n3 * (r1x * r2x + r1y * r2y + r1z * r2z);
             if (!(prod > 0) || Math.abs(num) <= PolyhedronField.ON_FACET_TOLERANCE * prod
                 && den <= PolyhedronField.ON_FACET_TOLERANCE * prod) {
                 onSurface = true; // same rule as the direct sum: this facet's ω is dropped
-            } else {
-                om = 2 * KernelMath.atan2(num, den);
+                return;
             }
-            sf -= h * om;
-            vx += fnx * sf;
-            vy += fny * sf;
-            vz += fnz * sf;
-            uSum += h * sf;
+            double om = 2 * KernelMath.atan2(num, den);
+            double ho = h * om;
+            vx -= fnx * ho;
+            vy -= fny * ho;
+            vz -= fnz * ho;
+            uSum -= h * ho;
             omega += om;
             if (gradient) {
-                // ∂_j g_i = Gρ n_i (Σ m L − n ω)_j
-                double wx = mlx - fnx * om;
-                double wy = mly - fny * om;
-                double wz = mlz - fnz * om;
-                tn[0] += fnx * wx;
-                tn[1] += fnx * wy;
-                tn[2] += fnx * wz;
-                tn[3] += fny * wx;
-                tn[4] += fny * wy;
-                tn[5] += fny * wz;
-                tn[6] += fnz * wx;
-                tn[7] += fnz * wy;
-                tn[8] += fnz * wz;
+                tn[0] -= fnx * fnx * om;
+                tn[1] -= fnx * fny * om;
+                tn[2] -= fnx * fnz * om;
+                tn[3] -= fny * fnx * om;
+                tn[4] -= fny * fny * om;
+                tn[5] -= fny * fnz * om;
+                tn[6] -= fnz * fnx * om;
+                tn[7] -= fnz * fny * om;
+                tn[8] -= fnz * fnz * om;
             }
         }
 
@@ -978,8 +1082,8 @@ public final class HierarchicalField implements FieldModel {
          */
         private void farGradient(int mo, int deg, double f) {
             for (int i = 0; i < 3; i++) {
-                int re = mo + 2 * i * size;
-                int im = re + size;
+                int re = mo + 2 * i;
+                int im = re + 1;
                 double sx = 0;
                 double sy = 0;
                 double sz = 0;
@@ -989,8 +1093,8 @@ public final class HierarchicalField implements FieldModel {
                     for (int m = 0; m <= n; m++) {
                         // raw moment M_n^m (weights removed)
                         double w = m == 0 ? 1 : 0.5;
-                        double mr = w * moments[re + b + m];
-                        double mi = w * moments[im + b + m];
+                        double mr = w * moments[re + 8 * (b + m)];
+                        double mi = w * moments[im + 8 * (b + m)];
                         // z: ∂_z I_n^m = −I_{n+1}^m
                         double jzr = jr[t + m];
                         double jzi = ji[t + m];
