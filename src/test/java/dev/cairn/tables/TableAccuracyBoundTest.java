@@ -23,7 +23,8 @@ import org.junit.jupiter.api.Test;
  * error in any band of distance from the surface than the report states, for the tricubic Hermite reader, a
  * trilinear reader and the effective acceleration. Reference: the exact polyhedron field (Werner &amp; Scheeres 1997;
  * itself checked against the Nagy et al. 2000 prism in the gravity tests); exact distances point to mesh computed
- * here by brute force over the facets (Ericson 2005 closest point, via {@link SurfaceDistance}). The body is a lumpy
+ * here by brute force over all facets (Ericson 2005 closest point, via {@link SurfaceQuery#windingAndDistance}, not
+ * the bucket grid the report uses). The body is a lumpy
  * test shape (320 facets), not the demo body.
  */
 class TableAccuracyBoundTest {
@@ -146,6 +147,8 @@ class TableAccuracyBoundTest {
                                 AccuracyCheck.CellGeometry cells, TableLayout layout, double[] max, int[] counts,
                                 TableField region) {
         FieldEvaluator r = reader.newEvaluator();
+        SurfaceQuery brute = new SurfaceQuery(mesh);
+        double[] wd = new double[2];
         FieldEvaluator e = exact.newEvaluator();
         double[] a = new double[FieldSample.SIZE];
         double[] b = new double[FieldSample.SIZE];
@@ -159,7 +162,8 @@ class TableAccuracyBoundTest {
             if (!region.contains(x, y, z)) {
                 continue;
             }
-            double d = SurfaceDistance.distance(mesh, x, y, z);
+            brute.windingAndDistance(x, y, z, wd);
+            double d = wd[1];
             e.evaluate(x, y, z, false, a, 0);
             if (a[FieldSample.LOCATION] != dev.cairn.gravity.Location.OUTSIDE.code()) {
                 continue; // inside the body or on it (exact solid-angle test of the field model)
