@@ -72,11 +72,12 @@ public final class CompareCommand implements Callable<Integer> {
         + "(default: ${DEFAULT-VALUE}).")
     String scheme = MasconOptions.DEFAULT_SCHEME;
 
-    @Option(names = "--match-inertia", negatable = true, description = "Adjust the mascon masses so that the set "
-        + "has the body's inertia tensor too, not only its mass and centre of mass (default: on for sets of at least "
-        + dev.cairn.mascon.MasconMatch.AUTO_INERTIA_MIN_TEXT + " mascons, where it does not hurt the field near the "
-        + "surface; see docs/mascons.md).")
+    @Option(names = "--match-inertia", negatable = true, description = "Adjust the mascon masses to the body's "
+        + "quadrupole (inertia tensor up to its trace) too (default: on for the lattice, off for tetra).")
     Boolean matchInertia;
+
+    @Option(names = "--match-full-inertia", description = "Match the full inertia tensor, trace included.")
+    boolean matchFullInertia;
 
     @Option(names = "--altitudes", paramLabel = "M[,M...]", split = ",", description = "Shell altitudes above the "
         + "surface, m (default: 0.05, 0.25 and 1 times the equivalent radius).")
@@ -153,12 +154,14 @@ public final class CompareCommand implements Callable<Integer> {
                 surfR[i] = surface.farthestHit(com[0], com[1], com[2], dirs[3 * i], dirs[3 * i + 1], dirs[3 * i + 2]);
             }
         }, ProgressListener.NONE);
-        FieldModel ref = MasconOptions.build(body, reference, mascons[0], scheme, matchInertia, nThreads, err);
+        FieldModel ref = MasconOptions.build(body, reference, mascons[0], scheme,
+            MasconOptions.moments(scheme, matchInertia, matchFullInertia), nThreads, err);
         boolean testIsMascon = test.toLowerCase(Locale.ROOT).startsWith("mascon");
         int[] counts = testIsMascon ? mascons : new int[] {0};
         List<FieldModel> tests = new ArrayList<>();
         for (int n : counts) {
-            tests.add(MasconOptions.build(other, test, n, scheme, matchInertia, nThreads, err));
+            tests.add(MasconOptions.build(other, test, n, scheme,
+                MasconOptions.moments(scheme, matchInertia, matchFullInertia), nThreads, err));
         }
         List<Row> rows = new ArrayList<>();
         int evaluated = 0;

@@ -38,25 +38,46 @@ public final class MasconOptions {
     String scheme = DEFAULT_SCHEME;
 
     @Option(names = "--match-inertia", negatable = true, description = "Adjust the mascon masses so that the set "
-        + "has the body's inertia tensor too, not only its mass and centre of mass (default: on for sets of at least "
-        + MasconMatch.AUTO_INERTIA_MIN_TEXT + " mascons, where it does not hurt the field near the surface; see "
+        + "has the body's quadrupole (inertia tensor up to its trace) too, not only its mass and centre of mass "
+        + "(default: on for the lattice, off for tetra, where it would hurt the field near the surface; see "
         + "docs/mascons.md).")
     Boolean matchInertia;
+
+    @Option(names = "--match-full-inertia", description = "Match the full inertia tensor, trace included (usually "
+        + "worse far away: the trace does not enter the exterior field; see docs/mascons.md).")
+    boolean matchFullInertia;
 
     /** The mascon set of {@code body} with these options' count and scheme, moments matched with the inertia. */
     static MasconSet generate(BodyModel body, String scheme, int count, int threads) {
         return generate(body, scheme, count, threads, null, null);
     }
 
+    /** The moments to match: the option's choice, else the scheme's default. */
+    static MasconMatch.Moments moments(String scheme, Boolean inertia, boolean full) {
+        if (full) {
+            return MasconMatch.Moments.INERTIA;
+        }
+        if (inertia != null) {
+            return inertia ? MasconMatch.Moments.QUADRUPOLE : MasconMatch.Moments.CENTRE;
+        }
+        MasconGenerator.Scheme s;
+        try {
+            s = MasconGenerator.Scheme.parse(scheme);
+        } catch (IllegalArgumentException e) {
+            throw new InputException("--mascon-scheme: " + e.getMessage());
+        }
+        return MasconMatch.defaultMoments(s);
+    }
+
     /**
      * The mascon set of {@code body} with the given count and scheme, its masses adjusted ({@link MasconMatch}) to
-     * the body's mass and centre of mass and, with {@code inertia} (null: {@link MasconMatch#autoInertia}), its
-     * inertia tensor. Not adjusted for a body
+     * the body's mass and centre of mass and the chosen second moments (null: the scheme's default,
+     * {@link MasconMatch#defaultMoments}). Not adjusted for a body
      * with a density gradient (the reference moments there know only the constant densities).
      *
      * @param notes receives one line about the adjustment (may be null)
      */
-    static MasconSet generate(BodyModel body, String scheme, int count, int threads, Boolean inertia,
+    static MasconSet generate(BodyModel body, String scheme, int count, int threads, MasconMatch.Moments moments,
                               java.util.List<String> notes) {
         if (count < 1) {
             throw new InputException("--mascons must be at least 1, got " + count);
@@ -86,7 +107,7 @@ public final class MasconOptions {
             return raw;
         }
         MasconMatch.Result r = MasconMatch.match(raw, body.massProperties(),
-            inertia != null ? inertia : MasconMatch.autoInertia(raw.count()));
+            moments != null ? moments : MasconMatch.defaultMoments(s));
         if (notes != null) {
             notes.add(r.note());
         }
@@ -95,10 +116,11 @@ public final class MasconOptions {
 
     /** Builds the chosen field model; for mascons, prints the mass-property report to {@code err}. */
     FieldModel build(BodyModel body, int threads, PrintWriter err) {
-        return build(body, model, mascons, scheme, matchInertia, threads, err);
+        return build(body, model, mascons, scheme, moments(scheme, matchInertia, matchFullInertia), threads, err);
     }
 
-    static FieldModel build(BodyModel body, String model, int mascons, String scheme, Boolean inertia, int threads,
+    static FieldModel build(BodyModel body, String model, int mascons, String scheme, MasconMatch.Moments moments,
+                            int threads,
                             PrintWriter err) {
         switch (model.toLowerCase(Locale.ROOT)) {
             case "polyhedron":
@@ -106,7 +128,7 @@ public final class MasconOptions {
             case "mascon":
             case "mascons":
                 java.util.List<String> notes = new java.util.ArrayList<>();
-                MasconSet set = generate(body, scheme, mascons, threads, inertia, notes);
+                MasconSet set = generate(body, scheme, mascons, threads, moments, notes);
                 err.print(indent(set.scheme() + "\n" + String.join("\n", notes) + "\n"
                     + MasconReport.of(set, body.massProperties()).text()));
                 err.flush();
