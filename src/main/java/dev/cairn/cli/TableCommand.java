@@ -280,6 +280,10 @@ public final class TableCommand implements Callable<Integer> {
         try (ProgressBar bar = new ProgressBar("accuracy check")) {
             return AccuracyCheck.bound(table, field, new dev.cairn.mascon.SurfaceQuery(surface), spin, samples,
                 cellPoints, seed, threads, bar);
+        } catch (IllegalArgumentException e) {
+            err.println("cairn: note: no accuracy report: " + e.getMessage() + " (lower --check-samples or "
+                + "--check-cell-points)");
+            return null;
         }
     }
 
