@@ -195,11 +195,11 @@ public final class AccuracyCheck {
     public static final int DEFAULT_RANDOM_PER_CELL = 4;
     /**
      * Safety factor on the largest error found in the dense bands (measured, no source: on the test bodies of
-     * {@code TableAccuracyBoundTest} the largest error at 20 000 fresh points per band came to at most 1.3 times the
-     * largest found by the dense check; see docs/tables.md §accuracy).
+     * {@code TableAccuracyBoundTest} the largest error at 20 000 fresh points came to at most 1.14 times the largest
+     * found by the dense check; see docs/tables.md, accuracy report).
      */
     public static final double DENSE_FACTOR = 2.0;
-    /** Safety factor on the sampled far bands (measured, no source; same test, at most 1.2 measured). */
+    /** Safety factor on the sampled far bands (measured, no source; same test: fresh maxima at most 1.13 times). */
     public static final double FAR_FACTOR = 2.0;
     /**
      * Order k of each interpolant's error, {@code ∝ h^k·|∂^k g|} (tricubic Hermite 4, trilinear 2; e.g. de Boor 1978,
