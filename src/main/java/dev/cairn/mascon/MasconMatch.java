@@ -14,16 +14,17 @@ import java.util.Locale;
  * yz} for the full inertia), coordinates relative to the reference
  * centre of mass and scaled by the equivalent radius. The Lagrange solution of this equality-constrained least
  * squares problem (e.g. Golub, G.H. &amp; Van Loan, C.F. (2013) Matrix Computations, 4th ed., §6.2) is
- * {@code δ_i = φ(p_i)ᵀλ}, {@code G λ = r}, with the Gram matrix {@code G = Σ m_i φ(p_i)φ(p_i)ᵀ} (4×4 or 10×10) and
+ * {@code δ_i = φ(p_i)ᵀλ}, {@code G λ = r}, with the Gram matrix {@code G = Σ m_i φ(p_i)φ(p_i)ᵀ} (4×4, 9×9 or 10×10) and
  * the moment residual {@code r = T − Σ m_i φ(p_i)}: the correction is a smooth polynomial in position, so it moves
- * no mass between neighbouring mascons. Two refinement passes bring the residual to rounding. A set whose correction
+ * no mass between neighbouring mascons (a set with negative masses is weighted by |m_i|, so that G stays positive
+ * definite, and δ_i = sign(m_i)·φ(p_i)ᵀλ). Two refinement passes bring the residual to rounding. A set whose correction
  * would shrink some mascon by half or more ({@code 1 + δ_i ≤ ½}) is left unmatched for the second moments (mass and
  * centre of mass only) and, failing that too, unchanged: the result says which.
  *
  * <p>Why the quadrupole rather than the full tensor: the trace {@code Σ m r²} plays no part in the exterior field,
  * yet a lattice misses mostly the trace (each cube's own inertia, isotropic); matching it needs a correction growing
- * as r², which spoils the degree-3 and degree-4 moments (measured: the far-field error of lattice sets rose up to
- * 30-fold, docs/mascons.md §5.5).
+ * as r², which spoils the degree-3 and degree-4 moments (measured: far-field errors of lattice sets up to 45 times
+ * those of the quadrupole match, docs/mascons.md §5.5).
  *
  * <p>The second moments {@code J = ∫ r rᵀ dm} about the centre of mass come from the inertia tensor:
  * {@code J = ½ tr(I)·1 − I}. Units: SI, model frame.
@@ -33,8 +34,8 @@ public final class MasconMatch {
     public static final double MIN_FACTOR = 0.5;
     private static final int PASSES = 3;
     /**
-     * Default moments for a scheme: the quadrupole for the lattice (measured in docs/mascons.md §5.5: never worse
-     * near the surface, up to 50 times better far away), mass and centre of mass only for the tetrahedral set (already
+     * Default moments for a scheme: the quadrupole for the lattice (measured in docs/mascons.md §5.5: not worse near
+     * the surface, 18 to 5000 times better at 50 radii), mass and centre of mass only for the tetrahedral set (already
      * exact; matching its quadrupole made the error 0.05 equivalent radii above the demo body's surface 14–21 % worse).
      */
     public static Moments defaultMoments(MasconGenerator.Scheme scheme) {
@@ -67,7 +68,7 @@ public final class MasconMatch {
      *
      * @param set             the adjusted set (the input set when nothing was matched)
      * @param matchedCentre   mass and centre of mass matched
-     * @param matchedInertia  inertia tensor matched too
+     * @param matchedInertia  second moments matched too (quadrupole or full inertia tensor)
      * @param maxChange       largest |δ_i|, the relative change of a single mascon's mass
      * @param note            one line for reports
      */
@@ -166,7 +167,7 @@ public final class MasconMatch {
                     double t = sum[a] + y;
                     comp[a] = (t - sum[a]) - y;
                     sum[a] = t;
-                    double wa = m[i] / mass * phi[a];
+                    double wa = Math.abs(m[i]) / mass * phi[a];
                     for (int b = a; b < k; b++) {
                         gram[a * k + b] += wa * phi[b];
                     }
@@ -191,7 +192,7 @@ public final class MasconMatch {
                 for (int a = 0; a < k; a++) {
                     d += phi[a] * lambda[a];
                 }
-                factor[i] += d;
+                factor[i] += m[i] < 0 ? -d : d;
                 if (!(factor[i] > MIN_FACTOR)) {
                     return null;
                 }
