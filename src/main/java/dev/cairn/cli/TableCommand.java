@@ -316,25 +316,6 @@ public final class TableCommand implements Callable<Integer> {
         }
     }
 
-    static void printAccuracy(PrintWriter w, AccuracyCheck.Report rep) {
-        w.printf(Locale.ROOT, "Accuracy (relative acceleration error at %d random points, seed %d):%n", rep.samples(),
-            rep.seed());
-        printStats(w, "outside body", rep.outside());
-        printStats(w, "inside body ", rep.inside());
-        if (rep.blank() > 0) {
-            w.printf(Locale.ROOT, "  %d point(s) in cells with blank (NaN) nodes%n", rep.blank());
-        }
-    }
-
-    private static void printStats(PrintWriter w, String label, AccuracyCheck.Stats s) {
-        if (s.count() == 0) {
-            w.printf(Locale.ROOT, "  %s: no points%n", label);
-            return;
-        }
-        w.printf(Locale.ROOT, "  %s: %6d points  max %.3e  rms %.3e  p50 %.3e  p90 %.3e  p99 %.3e  (max abs %.3e m/s^2)%n",
-            label, s.count(), s.max(), s.rms(), s.p50(), s.p90(), s.p99(), s.maxAbs());
-    }
-
     private static String now() {
         return Instant.now().truncatedTo(ChronoUnit.SECONDS).toString();
     }
