@@ -29,16 +29,16 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code cairn compare}: two field models of the same body (e.g. the polyhedron against mascon sets of several sizes,
- * or two density assumptions) evaluated on spherical shells about the centre of mass, at given altitudes above the
- * surface (measured along the radial direction from the centre of mass to the outermost surface crossing) or at
- * given radii. Reports the relative acceleration error {@code |g_test − g_ref| / |g_ref|} per shell: max, RMS and
+ * or two density assumptions) evaluated on shells: at given altitudes above the surface (exact distance to the
+ * surface, one point per direction from the centre of mass; or, with {@code --radial-altitudes}, measured along the
+ * radial direction beyond the outermost surface crossing) or on spheres of given radii. Reports the relative acceleration error {@code |g_test − g_ref| / |g_ref|} per shell: max, RMS and
  * percentiles (nearest rank), and the largest relative potential error. Points inside the body are left out.
  */
 @Command(name = "compare", mixinStandardHelpOptions = true,
     header = "Compare two field models of one body on shells above the surface.",
     description = {"Compare two gravity field models of one body on spherical shells (relative acceleration error).",
-        "Shells: --altitudes above the surface (radially from the centre of mass) or --radii from the centre of mass,",
-        "metres. Conventions: SI units, model frame, U > 0, acceleration = grad U.",
+        "Shells: --altitudes above the surface (exact distance to the surface; --radial-altitudes: radially from the",
+        "centre of mass) or --radii from the centre of mass, metres. Conventions: SI units, model frame, U > 0, acceleration = grad U.",
         "Caution: results must be verified independently before operational use; mission rules and the",
         "responsible flight-dynamics authority decide."})
 public final class CompareCommand implements Callable<Integer> {
@@ -72,9 +72,20 @@ public final class CompareCommand implements Callable<Integer> {
         + "(default: ${DEFAULT-VALUE}).")
     String scheme = MasconOptions.DEFAULT_SCHEME;
 
+    @Option(names = "--match-inertia", negatable = true, description = "Adjust the mascon masses to the body's "
+        + "quadrupole (inertia tensor up to its trace) too (default: on for the lattice, off for tetra).")
+    Boolean matchInertia;
+
+    @Option(names = "--match-full-inertia", description = "Match the full inertia tensor, trace included.")
+    boolean matchFullInertia;
+
     @Option(names = "--altitudes", paramLabel = "M[,M...]", split = ",", description = "Shell altitudes above the "
         + "surface, m (default: 0.05, 0.25 and 1 times the equivalent radius).")
     double[] altitudes;
+
+    @Option(names = "--radial-altitudes", description = "Measure --altitudes radially from the centre of mass beyond "
+        + "the outermost surface crossing, instead of as the exact distance to the surface.")
+    boolean radialAltitudes;
 
     @Option(names = "--radii", paramLabel = "M[,M...]", split = ",", description = "Shell radii from the centre of "
         + "mass, m (instead of --altitudes).")
@@ -143,17 +154,20 @@ public final class CompareCommand implements Callable<Integer> {
                 surfR[i] = surface.farthestHit(com[0], com[1], com[2], dirs[3 * i], dirs[3 * i + 1], dirs[3 * i + 2]);
             }
         }, ProgressListener.NONE);
-        FieldModel ref = MasconOptions.build(body, reference, mascons[0], scheme, nThreads, err);
+        FieldModel ref = MasconOptions.build(body, reference, mascons[0], scheme,
+            MasconOptions.moments(scheme, matchInertia, matchFullInertia), nThreads, err);
         boolean testIsMascon = test.toLowerCase(Locale.ROOT).startsWith("mascon");
         int[] counts = testIsMascon ? mascons : new int[] {0};
         List<FieldModel> tests = new ArrayList<>();
         for (int n : counts) {
-            tests.add(MasconOptions.build(other, test, n, scheme, nThreads, err));
+            tests.add(MasconOptions.build(other, test, n, scheme,
+                MasconOptions.moments(scheme, matchInertia, matchFullInertia), nThreads, err));
         }
         List<Row> rows = new ArrayList<>();
         int evaluated = 0;
         for (double s : shells) {
-            double[] xyz = shellPoints(s, byAltitude, com, dirs, surfR, surface);
+            double[] xyz = shellPoints(s, byAltitude, radialAltitudes, com, mp.brillouinRadius(), dirs, surfR,
+                surface);
             int n = xyz.length / 3;
             if (n == 0) {
                 err.println("cairn: warning: shell " + s + " m lies wholly inside the body; skipped");
@@ -182,7 +196,8 @@ public final class CompareCommand implements Callable<Integer> {
                 FieldModel tm = tests.get(t);
                 int actual = tm instanceof dev.cairn.mascon.MasconField ? ((dev.cairn.mascon.MasconField) tm).count()
                     : 0;
-                rows.add(new Row(tm.describe(), actual, byAltitude ? "altitude" : "radius", s, n,
+                rows.add(new Row(tm.describe(), actual, byAltitude ? (radialAltitudes ? "radial_altitude" : "altitude")
+                    : "radius", s, n,
                     stats(e), pmax));
             }
         }
@@ -190,7 +205,7 @@ public final class CompareCommand implements Callable<Integer> {
         for (FieldModel t : tests) {
             MasconOptions.warnTooClose(t, evaluated, err);
         }
-        printTable(out, body, ref, rows, byAltitude);
+        printTable(out, body, ref, rows, byAltitude, radialAltitudes);
         if (csv != null) {
             AtomicFiles.writeString(csv, toCsv(body, ref, rows));
             err.println("cairn: wrote " + csv);
@@ -204,28 +219,54 @@ public final class CompareCommand implements Callable<Integer> {
     }
 
     /** Shell points outside the body along the given directions. */
-    private static double[] shellPoints(double s, boolean byAltitude, double[] com, double[] dirs, double[] surfR,
-                                        SurfaceQuery surface) {
+    /**
+     * Points of one shell, one per direction from the centre of mass: at radius {@code s}; at altitude {@code s}
+     * radially (beyond the outermost surface crossing of the ray, {@code radial}); or at the exact height {@code s}
+     * above the surface: the point of the ray beyond the outermost crossing whose exact distance to the surface is
+     * {@code s} (bisection; the distance is 1-Lipschitz along the ray, at most s at the radial point and at least s
+     * once the point is s beyond the Brillouin sphere of radius {@code rb}).
+     */
+    static double[] shellPoints(double s, boolean byAltitude, boolean radial, double[] com, double rb, double[] dirs,
+                                double[] surfR, SurfaceQuery surface) {
         int n = dirs.length / 3;
         double[] xyz = new double[3 * n];
+        double[] w = new double[4];
         int k = 0;
         for (int i = 0; i < n; i++) {
             double r;
+            double dx = dirs[3 * i];
+            double dy = dirs[3 * i + 1];
+            double dz = dirs[3 * i + 2];
             if (byAltitude) {
                 if (Double.isNaN(surfR[i])) {
                     continue; // the ray from the centre of mass misses the surface (centre of mass outside the body)
                 }
                 r = surfR[i] + s;
+                if (!radial && s > 0) {
+                    double lo = r;
+                    double hi = Math.max(r, rb + s) + 1e-9 * (rb + s);
+                    // Bisection bounded by a count: 200 halvings reach rounding for any bracket.
+                    for (int it = 0; it < 200 && hi - lo > 1e-12 * (rb + s); it++) {
+                        double mid = 0.5 * (lo + hi);
+                        double d = surface.signedDistance(com[0] + mid * dx, com[1] + mid * dy, com[2] + mid * dz, w);
+                        if (d < s) {
+                            lo = mid;
+                        } else {
+                            hi = mid;
+                        }
+                    }
+                    r = 0.5 * (lo + hi);
+                }
             } else {
                 r = s;
-                if (!Double.isNaN(surfR[i]) && r <= surfR[i] && surface.inside(com[0] + r * dirs[3 * i],
-                    com[1] + r * dirs[3 * i + 1], com[2] + r * dirs[3 * i + 2])) {
+                if (!Double.isNaN(surfR[i]) && r <= surfR[i] && surface.inside(com[0] + r * dx, com[1] + r * dy,
+                    com[2] + r * dz)) {
                     continue;
                 }
             }
-            xyz[3 * k] = com[0] + r * dirs[3 * i];
-            xyz[3 * k + 1] = com[1] + r * dirs[3 * i + 1];
-            xyz[3 * k + 2] = com[2] + r * dirs[3 * i + 2];
+            xyz[3 * k] = com[0] + r * dx;
+            xyz[3 * k + 1] = com[1] + r * dy;
+            xyz[3 * k + 2] = com[2] + r * dz;
             k++;
         }
         return Arrays.copyOf(xyz, 3 * k);
@@ -263,12 +304,12 @@ public final class CompareCommand implements Callable<Integer> {
     }
 
     private static void printTable(PrintWriter out, BodyModel body, FieldModel ref, List<Row> rows,
-                                   boolean byAltitude) {
+                                   boolean byAltitude, boolean radial) {
         out.println("Body: " + body.source() + " (" + body.name() + ")");
         out.println("Reference: " + ref.describe());
         out.println("Relative acceleration error |g_test - g_ref| / |g_ref| per shell"
-            + (byAltitude ? " (altitude above the surface, radially from the centre of mass)" : " (radius from the "
-            + "centre of mass)") + ":");
+            + (byAltitude ? radial ? " (altitude above the surface, radially from the centre of mass)"
+                : " (altitude = exact distance to the surface)" : " (radius from the centre of mass)") + ":");
         out.printf(Locale.ROOT, "%-9s %13s %7s %10s %10s %10s %10s %10s %10s%n", "mascons",
             byAltitude ? "altitude_m" : "radius_m", "points", "max", "rms", "p50", "p90", "p99", "max dU/U");
         for (Row r : rows) {

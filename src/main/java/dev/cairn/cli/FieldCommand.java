@@ -41,6 +41,10 @@ public final class FieldCommand implements Callable<Integer> {
     @Option(names = "--gradient", description = "Also write the gravity-gradient tensor (6 unique components).")
     boolean gradient;
 
+    @Option(names = "--distance", description = "Also write the exact signed distance to the surface "
+        + "(distance_to_surface_m, negative inside).")
+    boolean distance;
+
     @Option(names = "--out", paramLabel = "FILE", description = "Output CSV (default: standard output).")
     Path out;
 
@@ -73,29 +77,46 @@ public final class FieldCommand implements Callable<Integer> {
             err.println("cairn: " + FieldCheck.measure(field, xyz, FieldCheck.DEFAULT_SAMPLES, 1L,
                 Math.max(1, threads)).line());
         }
+        double[] dist = distance ? distances(body, xyz) : null;
         if (out == null) {
             PrintWriter o = spec.commandLine().getOut();
             StringBuilder sb = new StringBuilder();
-            write(sb, xyz, res);
+            write(sb, xyz, res, dist);
             o.print(sb);
             o.flush();
         } else {
-            AtomicFiles.write(out, os -> writeTo(os, xyz, res));
+            AtomicFiles.write(out, os -> writeTo(os, xyz, res, dist));
             err.println("cairn: wrote " + (xyz.length / 3) + " points to " + out);
         }
         return 0;
     }
 
-    private void writeTo(OutputStream os, double[] xyz, double[] res) throws IOException {
+    /** Exact signed distances of the points to the body's (outer) surface, m, negative inside. */
+    private double[] distances(BodyModel body, double[] xyz) {
+        dev.cairn.mascon.SurfaceQuery q = new dev.cairn.mascon.SurfaceQuery(body.mesh());
+        int n = xyz.length / 3;
+        double[] d = new double[n];
+        ParallelChunks.run(n, Math.max(1, threads), () -> new double[4], (w, from, to) -> {
+            for (int i = from; i < to; i++) {
+                d[i] = q.signedDistance(xyz[3 * i], xyz[3 * i + 1], xyz[3 * i + 2], w);
+            }
+        }, dev.cairn.util.ProgressListener.NONE);
+        return d;
+    }
+
+    private void writeTo(OutputStream os, double[] xyz, double[] res, double[] dist) throws IOException {
         StringBuilder sb = new StringBuilder(1 << 16);
-        write(sb, xyz, res);
+        write(sb, xyz, res, dist);
         os.write(sb.toString().getBytes(StandardCharsets.UTF_8));
     }
 
-    private void write(StringBuilder sb, double[] xyz, double[] res) {
+    private void write(StringBuilder sb, double[] xyz, double[] res, double[] dist) {
         sb.append(HEADER);
         if (gradient) {
             sb.append(GRADIENT_HEADER);
+        }
+        if (dist != null) {
+            sb.append(",").append(dev.cairn.tables.TableLayout.DISTANCE);
         }
         sb.append('\n');
         int n = xyz.length / 3;
@@ -110,6 +131,9 @@ public final class FieldCommand implements Callable<Integer> {
                 for (int k = FieldSample.GXX; k <= FieldSample.GZZ; k++) {
                     sb.append(',').append(res[o + k]);
                 }
+            }
+            if (dist != null) {
+                sb.append(',').append(dist[i]);
             }
             sb.append('\n');
         }

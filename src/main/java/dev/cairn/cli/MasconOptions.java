@@ -6,6 +6,7 @@ import dev.cairn.io.InputException;
 import dev.cairn.mascon.DensityModel;
 import dev.cairn.mascon.MasconField;
 import dev.cairn.mascon.MasconGenerator;
+import dev.cairn.mascon.MasconMatch;
 import dev.cairn.mascon.MasconReport;
 import dev.cairn.mascon.MasconSet;
 import java.io.PrintWriter;
@@ -36,8 +37,48 @@ public final class MasconOptions {
         + "surface; tetra keeps mass and centre of mass exact; see docs/mascons.md).")
     String scheme = DEFAULT_SCHEME;
 
-    /** The mascon set of {@code body} with these options' count and scheme. */
+    @Option(names = "--match-inertia", negatable = true, description = "Adjust the mascon masses so that the set "
+        + "has the body's quadrupole (inertia tensor up to its trace) too, not only its mass and centre of mass "
+        + "(default: on for the lattice, off for tetra, where it would hurt the field near the surface; see "
+        + "docs/mascons.md).")
+    Boolean matchInertia;
+
+    @Option(names = "--match-full-inertia", description = "Match the full inertia tensor, trace included (usually "
+        + "worse far away: the trace does not enter the exterior field; see docs/mascons.md).")
+    boolean matchFullInertia;
+
+    /** The mascon set of {@code body} with these options' count and scheme, moments matched with the inertia. */
     static MasconSet generate(BodyModel body, String scheme, int count, int threads) {
+        return generate(body, scheme, count, threads, null, null);
+    }
+
+    /** The moments to match: the option's choice, else the scheme's default. */
+    static MasconMatch.Moments moments(String scheme, Boolean inertia, boolean full) {
+        if (full) {
+            return MasconMatch.Moments.INERTIA;
+        }
+        if (inertia != null) {
+            return inertia ? MasconMatch.Moments.QUADRUPOLE : MasconMatch.Moments.CENTRE;
+        }
+        MasconGenerator.Scheme s;
+        try {
+            s = MasconGenerator.Scheme.parse(scheme);
+        } catch (IllegalArgumentException e) {
+            throw new InputException("--mascon-scheme: " + e.getMessage());
+        }
+        return MasconMatch.defaultMoments(s);
+    }
+
+    /**
+     * The mascon set of {@code body} with the given count and scheme, its masses adjusted ({@link MasconMatch}) to
+     * the body's mass and centre of mass and the chosen second moments (null: the scheme's default,
+     * {@link MasconMatch#defaultMoments}). Not adjusted for a body
+     * with a density gradient (the reference moments there know only the constant densities).
+     *
+     * @param notes receives one line about the adjustment (may be null)
+     */
+    static MasconSet generate(BodyModel body, String scheme, int count, int threads, MasconMatch.Moments moments,
+                              java.util.List<String> notes) {
         if (count < 1) {
             throw new InputException("--mascons must be at least 1, got " + count);
         }
@@ -55,30 +96,47 @@ public final class MasconOptions {
             body.requireDensity();
             density = DensityModel.uniform(body.mesh(), body.density());
         }
+        MasconSet raw;
         try (ProgressBar bar = new ProgressBar("mascons")) {
-            return MasconGenerator.generate(s, density, count, threads, bar);
+            raw = MasconGenerator.generate(s, density, count, threads, bar);
         }
+        if (body.regions() != null && body.regions().hasGradient()) {
+            if (notes != null) {
+                notes.add("masses not adjusted: the body has a density gradient, its reference moments do not");
+            }
+            return raw;
+        }
+        MasconMatch.Result r = MasconMatch.match(raw, body.massProperties(),
+            moments != null ? moments : MasconMatch.defaultMoments(s));
+        if (notes != null) {
+            notes.add(r.note());
+        }
+        return r.set();
     }
 
     /** Builds the chosen field model; for mascons, prints the mass-property report to {@code err}. */
     FieldModel build(BodyModel body, int threads, PrintWriter err) {
-        return build(body, model, mascons, scheme, threads, err);
+        return build(body, model, mascons, scheme, moments(scheme, matchInertia, matchFullInertia), threads, err);
     }
 
     /** As {@link #build(BodyModel, int, PrintWriter)} for a job of about {@code points} field points. */
     FieldModel build(BodyModel body, long points, int threads, PrintWriter err) {
         return model.toLowerCase(Locale.ROOT).equals("polyhedron") ? body.fieldModel(points)
-            : build(body, model, mascons, scheme, threads, err);
+            : build(body, threads, err);
     }
 
-    static FieldModel build(BodyModel body, String model, int mascons, String scheme, int threads, PrintWriter err) {
+    static FieldModel build(BodyModel body, String model, int mascons, String scheme, MasconMatch.Moments moments,
+                            int threads,
+                            PrintWriter err) {
         switch (model.toLowerCase(Locale.ROOT)) {
             case "polyhedron":
                 return body.fieldModel();
             case "mascon":
             case "mascons":
-                MasconSet set = generate(body, scheme, mascons, threads);
-                err.print(indent(set.scheme() + "\n" + MasconReport.of(set, body.massProperties()).text()));
+                java.util.List<String> notes = new java.util.ArrayList<>();
+                MasconSet set = generate(body, scheme, mascons, threads, moments, notes);
+                err.print(indent(set.scheme() + "\n" + String.join("\n", notes) + "\n"
+                    + MasconReport.of(set, body.massProperties()).text()));
                 err.flush();
                 return new MasconField(set);
             default:

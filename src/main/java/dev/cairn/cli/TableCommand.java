@@ -106,6 +106,10 @@ public final class TableCommand implements Callable<Integer> {
         + "rotating body (gravity + centrifugal).")
     boolean effective;
 
+    @Option(names = "--distance", description = "Also tabulate the exact signed distance to the surface "
+        + "(distance_to_surface_m, negative inside).")
+    boolean distance;
+
     @Option(names = "--exclude-interior", description = "Leave nodes inside the body as NaN (they stay flagged).")
     boolean excludeInterior;
 
@@ -130,9 +134,14 @@ public final class TableCommand implements Callable<Integer> {
         + "${DEFAULT-VALUE}).")
     int chunkNodes = TableJob.DEFAULT_CHUNK_NODES;
 
-    @Option(names = "--check-samples", paramLabel = "N", description = "Random points of the accuracy report "
-        + "(default ${DEFAULT-VALUE}; 0 skips it).")
-    int checkSamples = 2000;
+    @Option(names = "--check-samples", paramLabel = "N", description = "Independent random points of the accuracy "
+        + "report (the bands beyond 3 cell sizes from the surface; default " + AccuracyCheck.DEFAULT_RANDOM_POINTS
+        + ", with --bench 2000; 0 skips the report).")
+    Integer checkSamples;
+
+    @Option(names = "--check-cell-points", paramLabel = "N", description = "Random points per cell near the surface "
+        + "in the accuracy report, besides its centre and 6 face centres (default ${DEFAULT-VALUE}).")
+    int checkCellPoints = AccuracyCheck.DEFAULT_RANDOM_PER_CELL;
 
     @Option(names = "--seed", paramLabel = "S", description = "Seed of the accuracy report (default ${DEFAULT-VALUE}).")
     long seed = 1;
@@ -168,6 +177,7 @@ public final class TableCommand implements Callable<Integer> {
         if (gridKind != null) {
             preCheckGrid();
         }
+        checkAccuracyOptions(checkSamples, checkCellPoints);
         BodyModel body = model.load(spinOptions);
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
@@ -239,20 +249,11 @@ public final class TableCommand implements Callable<Integer> {
             err.printf(Locale.ROOT, "cairn: %.2f s, %.0f nodes/s with %d thread(s)%n", secs, computedNodes / secs,
                 threads);
         }
-        if (shard == null && checkSamples > 0 && !(grid instanceof PointGrid)) {
-            Table table = TableFiles.read(out);
-            TableField tf;
-            try {
-                tf = new TableField(table);
-            } catch (IllegalArgumentException e) {
-                err.println("cairn: note: no accuracy report: " + e.getMessage());
-                tf = null;
-            }
-            if (tf != null) {
-                AccuracyCheck.Report rep;
-                try (ProgressBar bar = new ProgressBar("accuracy check")) {
-                    rep = AccuracyCheck.run(tf, field, checkSamples, seed, threads, bar);
-                }
+        int samples = checkSamples != null ? checkSamples : AccuracyCheck.DEFAULT_RANDOM_POINTS;
+        if (shard == null && samples > 0 && !(grid instanceof PointGrid)) {
+            AccuracyCheck.BoundReport rep = accuracy(TableFiles.read(out), field, body.mesh(),
+                AccuracyCheck.Spin.of(layout), samples, checkCellPoints, seed, threads, err);
+            if (rep != null) {
                 TableBuilder.addAccuracy(out, outcome.metadata(), rep);
                 printAccuracy(outw, rep);
             }
@@ -263,23 +264,63 @@ public final class TableCommand implements Callable<Integer> {
         return 0;
     }
 
-    static void printAccuracy(PrintWriter w, AccuracyCheck.Report rep) {
-        w.printf(Locale.ROOT, "Accuracy (relative acceleration error at %d random points, seed %d):%n", rep.samples(),
-            rep.seed());
-        printStats(w, "outside body", rep.outside());
-        printStats(w, "inside body ", rep.inside());
-        if (rep.blank() > 0) {
-            w.printf(Locale.ROOT, "  %d point(s) in cells with blank (NaN) nodes%n", rep.blank());
+    /** Validates the accuracy-report options (before anything is computed). */
+    static void checkAccuracyOptions(Integer samples, int cellPoints) {
+        if (samples != null && (samples < 0 || samples > 10_000_000)) {
+            throw new InputException("--check-samples: expected 0 to 10000000 points, got " + samples);
+        }
+        if (cellPoints < 0 || cellPoints > 100) {
+            throw new InputException("--check-cell-points: expected 0 to 100 points per cell, got " + cellPoints);
         }
     }
 
-    private static void printStats(PrintWriter w, String label, AccuracyCheck.Stats s) {
-        if (s.count() == 0) {
-            w.printf(Locale.ROOT, "  %s: no points%n", label);
-            return;
+    /** The bound report of a written table, or null (with a note on {@code err}) when it cannot be interpolated. */
+    static AccuracyCheck.BoundReport accuracy(Table table, FieldModel field, dev.cairn.mesh.TriangleMesh surface,
+                                              AccuracyCheck.Spin spin, int samples, int cellPoints, long seed,
+                                              int threads, PrintWriter err) {
+        try {
+            new TableField(table);
+        } catch (IllegalArgumentException e) {
+            err.println("cairn: note: no accuracy report: " + e.getMessage());
+            return null;
         }
-        w.printf(Locale.ROOT, "  %s: %6d points  max %.3e  rms %.3e  p50 %.3e  p90 %.3e  p99 %.3e  (max abs %.3e m/s^2)%n",
-            label, s.count(), s.max(), s.rms(), s.p50(), s.p90(), s.p99(), s.maxAbs());
+        try (ProgressBar bar = new ProgressBar("accuracy check")) {
+            return AccuracyCheck.bound(table, field, new dev.cairn.mascon.SurfaceQuery(surface), spin, samples,
+                cellPoints, seed, threads, bar);
+        } catch (IllegalArgumentException e) {
+            err.println("cairn: note: no accuracy report: " + e.getMessage() + " (lower --check-samples or "
+                + "--check-cell-points)");
+            return null;
+        }
+    }
+
+    /** Terminal form of the bound report. */
+    static void printAccuracy(PrintWriter w, AccuracyCheck.BoundReport rep) {
+        w.printf(Locale.ROOT, "Accuracy of interpolation against the exact field, relative error |da|/|g| by distance "
+            + "from the surface%n  (in cell sizes; bound = stated upper bound, see docs/tables.md): %d cells near the "
+            + "surface x %d points, %d random points, seed %d%n", rep.denseCells(), rep.perCell(), rep.randomPoints(),
+            rep.seed());
+        w.printf(Locale.ROOT, "  %-17s %-23s %-7s %8s %10s %10s %10s%n", "interpolation", "quantity", "band", "points",
+            "bound", "max found", "p50");
+        for (AccuracyCheck.Interpolant in : rep.interpolants()) {
+            for (AccuracyCheck.Band b : in.bands()) {
+                String band = Double.isInfinite(b.to()) ? ">" + (int) b.from() : (int) b.from() + "-" + (int) b.to();
+                if (b.stats().count() == 0) {
+                    w.printf(Locale.ROOT, "  %-17s %-23s %-7s %8d %10s%n", in.interpolation(), in.quantity(), band, 0,
+                        "no points");
+                    continue;
+                }
+                w.printf(Locale.ROOT, "  %-17s %-23s %-7s %8d %10.3e %10.3e %10.3e%n", in.interpolation(),
+                    in.quantity(), band, b.stats().count(), b.bound(), b.stats().max(), b.stats().p50());
+            }
+            if (in.inside().count() > 0) {
+                w.printf(Locale.ROOT, "  %-17s %-23s %-7s %8d %10s %10.3e %10.3e%n", in.interpolation(), in.quantity(),
+                    "inside", in.inside().count(), "(none)", in.inside().max(), in.inside().p50());
+            }
+        }
+        if (rep.blank() > 0) {
+            w.printf(Locale.ROOT, "  %d point(s) in cells with blank (NaN) nodes left out%n", rep.blank());
+        }
     }
 
     private static String now() {
@@ -360,7 +401,7 @@ public final class TableCommand implements Callable<Integer> {
 
     private TableLayout layout(BodyModel body, Grid grid) {
         return new TableLayout(grid, gradient, effective, excludeInterior, body.spin().omega(), body.spin().axis(),
-            body.massProperties().centerOfMass());
+            body.massProperties().centerOfMass(), distance ? new dev.cairn.mascon.SurfaceQuery(body.mesh()) : null);
     }
 
     /**
@@ -399,7 +440,7 @@ public final class TableCommand implements Callable<Integer> {
         Grid grid = gridKind != null ? grid(body) : null;
         w.printf(Locale.ROOT, "Model: %s (%s), Brillouin radius %.1f m%n", body.source(), field.describe(), rb);
         TableBench.Report r = TableBench.run(field, body.mesh(), layout(body, grid != null ? grid
-            : TableBench.defaultGrid(com, rb)), com, rb, benchSpacings, gradient, threads, checkSamples, seed);
+            : TableBench.defaultGrid(com, rb)), com, rb, benchSpacings, gradient, threads, checkSamples != null ? checkSamples : 2000, seed);
         w.print(r.text());
         w.println(TableBuilder.CAUTION);
         w.flush();

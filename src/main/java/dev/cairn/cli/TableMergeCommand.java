@@ -5,7 +5,6 @@ import dev.cairn.io.InputException;
 import dev.cairn.io.ModelLoader;
 import dev.cairn.io.ModelRequest;
 import dev.cairn.tables.AccuracyCheck;
-import dev.cairn.tables.TableField;
 import dev.cairn.tables.TableBuilder;
 import dev.cairn.tables.TableFiles;
 import java.io.PrintWriter;
@@ -44,7 +43,7 @@ public final class TableMergeCommand implements Callable<Integer> {
 
     @Option(names = "--check-samples", paramLabel = "N", description = "Random points of the accuracy report "
         + "(default ${DEFAULT-VALUE}; 0 skips it).")
-    int checkSamples = 2000;
+    int checkSamples = AccuracyCheck.DEFAULT_RANDOM_POINTS;
 
     @Option(names = "--seed", paramLabel = "S", description = "Seed of the accuracy report (default ${DEFAULT-VALUE}).")
     long seed = 1;
@@ -93,16 +92,11 @@ public final class TableMergeCommand implements Callable<Integer> {
         Object density = model.get("density_kg_m3");
         BodyModel body = ModelLoader.load(Path.of(file.toString()), new ModelRequest(
             String.valueOf(model.get("length_unit_of_file")), ((Number) density).doubleValue(), null, null, null, null));
-        TableField tf;
-        try {
-            tf = new TableField(TableFiles.read(out));
-        } catch (IllegalArgumentException e) {
-            err.println("cairn: note: no accuracy report: " + e.getMessage());
+        AccuracyCheck.BoundReport rep = TableCommand.accuracy(TableFiles.read(out), body.fieldModel(), body.mesh(),
+            AccuracyCheck.Spin.fromMetadata(meta), checkSamples, AccuracyCheck.DEFAULT_RANDOM_PER_CELL, seed,
+            Math.max(1, threads), err);
+        if (rep == null) {
             return;
-        }
-        AccuracyCheck.Report rep;
-        try (ProgressBar bar = new ProgressBar("accuracy check")) {
-            rep = AccuracyCheck.run(tf, body.fieldModel(), checkSamples, seed, Math.max(1, threads), bar);
         }
         TableBuilder.addAccuracy(out, meta, rep);
         TableCommand.printAccuracy(o, rep);

@@ -19,7 +19,11 @@ import dev.cairn.mesh.TriangleMesh;
  * facet's angle-weighted pseudo-normal (Bærentzen, J.A. &amp; Aanæs, H. (2005) "Signed distance computation using the
  * angle weighted pseudonormal", IEEE Trans. Vis. Comput. Graph. 11(3):243–253), exact for a closed 2-manifold.
  *
- * <p>Units: metres, model frame. Immutable and thread-safe (no scratch state).
+ * <p>Signed distances ({@link #signedDistance}) use a uniform grid of facet buckets (each facet filed in every cell its
+ * bounding box overlaps), searched in rings of cells around the point until no unvisited cell can hold a nearer
+ * point; the sign is that of the angle-weighted pseudo-normal test above. The grid is built on first use.
+ *
+ * <p>Units: metres, model frame. Immutable and thread-safe (no scratch state; the index is built once, safely).
  */
 public final class SurfaceQuery {
     private final double[] xyz;
@@ -64,6 +68,197 @@ public final class SurfaceQuery {
                     en[9 * f + 3 * k + d] = fn[3 * f + d] + (other >= 0 ? fn[3 * other + d] : 0);
                 }
             }
+        }
+    }
+
+    private volatile Index index;
+
+    /**
+     * Exact signed distance from the point to the surface, m: negative inside, positive outside, 0 on it. Closest
+     * point over all facets (found through the bucket grid), sign from the pseudo-normal at the closest feature.
+     *
+     * @param scratch 4 values, modified (one per thread)
+     */
+    public double signedDistance(double x, double y, double z, double[] scratch) {
+        Index ix = index;
+        if (ix == null) {
+            synchronized (this) {
+                if (index == null) {
+                    index = new Index();
+                }
+                ix = index;
+            }
+        }
+        return ix.signedDistance(x, y, z, scratch);
+    }
+
+    /** Uniform grid of facet buckets (compressed rows: cell start offsets and facet ids). */
+    private final class Index {
+        private final double[] o = new double[3];
+        private final int[] n = new int[3];
+        private final double c;
+        private final int[] start;
+        private final int[] ids;
+
+        Index() {
+            double[] lo = {Double.POSITIVE_INFINITY, Double.POSITIVE_INFINITY, Double.POSITIVE_INFINITY};
+            double[] hi = {Double.NEGATIVE_INFINITY, Double.NEGATIVE_INFINITY, Double.NEGATIVE_INFINITY};
+            for (int i = 0; i < xyz.length; i++) {
+                lo[i % 3] = Math.min(lo[i % 3], xyz[i]);
+                hi[i % 3] = Math.max(hi[i % 3], xyz[i]);
+            }
+            double ext = Math.max(hi[0] - lo[0], Math.max(hi[1] - lo[1], hi[2] - lo[2]));
+            double pad = 1e-9 * ext + 1e-300;
+            double vol = 1;
+            for (int a = 0; a < 3; a++) {
+                lo[a] -= pad;
+                hi[a] += pad;
+                vol *= hi[a] - lo[a];
+            }
+            // About two facets per cell on a typical surface, at most ~8 cells per facet overall.
+            double cell = Math.max(Math.cbrt(vol / Math.max(1, facets)) * 0.7, ext / 256);
+            long total = 1;
+            for (int a = 0; a < 3; a++) {
+                o[a] = lo[a];
+                n[a] = Math.max(1, (int) Math.ceil((hi[a] - lo[a]) / cell));
+                total *= n[a];
+            }
+            this.c = cell;
+            int cells = (int) Math.min(total, Integer.MAX_VALUE - 8);
+            int[] count = new int[cells + 1];
+            int[] r = new int[6];
+            for (int pass = 0; pass < 2; pass++) {
+                int[] fill = pass == 1 ? count.clone() : null;
+                int[] out = pass == 1 ? new int[count[cells]] : null;
+                for (int f = 0; f < facets; f++) {
+                    range(f, r);
+                    for (int k = r[4]; k <= r[5]; k++) {
+                        for (int j = r[2]; j <= r[3]; j++) {
+                            for (int i = r[0]; i <= r[1]; i++) {
+                                int cellId = (k * n[1] + j) * n[0] + i;
+                                if (pass == 0) {
+                                    count[cellId + 1]++;
+                                } else {
+                                    out[fill[cellId]++] = f;
+                                }
+                            }
+                        }
+                    }
+                }
+                if (pass == 0) {
+                    for (int q = 0; q < cells; q++) {
+                        count[q + 1] += count[q];
+                    }
+                } else {
+                    this.start = count;
+                    this.ids = out;
+                    return;
+                }
+            }
+            throw new IllegalStateException("unreachable");
+        }
+
+        private void range(int f, int[] r) {
+            for (int a = 0; a < 3; a++) {
+                double mn = Double.POSITIVE_INFINITY;
+                double mx = Double.NEGATIVE_INFINITY;
+                for (int v = 0; v < 3; v++) {
+                    double q = xyz[3 * tri[3 * f + v] + a];
+                    mn = Math.min(mn, q);
+                    mx = Math.max(mx, q);
+                }
+                r[2 * a] = cellOf(a, mn);
+                r[2 * a + 1] = cellOf(a, mx);
+            }
+        }
+
+        private double outside(int a, double v) {
+            double top = o[a] + n[a] * c;
+            return v < o[a] ? o[a] - v : v > top ? v - top : 0;
+        }
+
+        private double faceBound(int a, double v, int ci, int r, double rest) {
+            double lb = Double.POSITIVE_INFINITY;
+            if (ci - r > 0) {
+                double g = Math.max(0, v - (o[a] + (ci - r) * c));
+                lb = Math.sqrt(g * g + rest);
+            }
+            if (ci + r + 1 < n[a]) {
+                double g = Math.max(0, o[a] + (ci + r + 1) * c - v);
+                lb = Math.min(lb, Math.sqrt(g * g + rest));
+            }
+            return lb;
+        }
+
+        private int cellOf(int a, double v) {
+            int i = (int) Math.floor((v - o[a]) / c);
+            return Math.max(0, Math.min(n[a] - 1, i));
+        }
+
+        double signedDistance(double x, double y, double z, double[] w) {
+            int c0 = cellOf(0, x);
+            int c1 = cellOf(1, y);
+            int c2 = cellOf(2, z);
+            double out0 = outside(0, x);
+            double out1 = outside(1, y);
+            double out2 = outside(2, z);
+            double best = Double.POSITIVE_INFINITY;
+            double sx = 0;
+            double sy = 0;
+            double sz = 0;
+            int bestF = -1;
+            int bestCode = 0;
+            int maxR = Math.max(n[0], Math.max(n[1], n[2]));
+            for (int r = 0; r <= maxR; r++) {
+                int i0 = Math.max(0, c0 - r);
+                int i1 = Math.min(n[0] - 1, c0 + r);
+                int j0 = Math.max(0, c1 - r);
+                int j1 = Math.min(n[1] - 1, c1 + r);
+                int k0 = Math.max(0, c2 - r);
+                int k1 = Math.min(n[2] - 1, c2 + r);
+                for (int k = k0; k <= k1; k++) {
+                    boolean kRing = Math.abs(k - c2) == r;
+                    for (int j = j0; j <= j1; j++) {
+                        boolean full = kRing || Math.abs(j - c1) == r;
+                        // Inside the ring's shell only the two x-ends of a row belong to ring r.
+                        int step = full || r == 0 ? 1 : 2 * r;
+                        int from = full ? i0 : c0 - r;
+                        for (int i = from; i <= (full ? i1 : c0 + r); i += step) {
+                            if (i < 0 || i >= n[0]) {
+                                continue;
+                            }
+                            int cellId = (k * n[1] + j) * n[0] + i;
+                            for (int q = start[cellId]; q < start[cellId + 1]; q++) {
+                                int f = ids[q];
+                                double d2 = distanceSquared(f, x, y, z, w);
+                                if (d2 < best) {
+                                    best = d2;
+                                    sx = w[0];
+                                    sy = w[1];
+                                    sz = w[2];
+                                    bestF = f;
+                                    bestCode = (int) w[3];
+                                }
+                            }
+                        }
+                    }
+                }
+                // Lower bound on the distance to any cell outside the visited block: beyond one of its faces in one
+                // axis, and inside the grid (so at least the distance outside the grid) in the other two.
+                double lb = Double.POSITIVE_INFINITY;
+                lb = Math.min(lb, faceBound(0, x, c0, r, out1 * out1 + out2 * out2));
+                lb = Math.min(lb, faceBound(1, y, c1, r, out0 * out0 + out2 * out2));
+                lb = Math.min(lb, faceBound(2, z, c2, r, out0 * out0 + out1 * out1));
+                if (lb == Double.POSITIVE_INFINITY || best <= lb * lb) {
+                    break;
+                }
+            }
+            double[] src = bestCode == 0 ? fn : bestCode <= 3 ? vn : en;
+            int off = bestCode == 0 ? 3 * bestF : bestCode <= 3 ? 3 * tri[3 * bestF + bestCode - 1]
+                : 9 * bestF + 3 * (bestCode - 4);
+            double side = sx * src[off] + sy * src[off + 1] + sz * src[off + 2];
+            double d = Math.sqrt(best);
+            return side < 0 ? -d : side > 0 ? d : 0;
         }
     }
 

@@ -122,11 +122,13 @@ public final class TableBench {
         double[] max = new double[bins];
         int[] cnt = new int[bins];
         double[] p = rep.points();
+        dev.cairn.mascon.SurfaceQuery surface = new dev.cairn.mascon.SurfaceQuery(mesh);
+        double[] w = new double[4];
         for (int i = 0; i < rep.samples(); i++) {
             if (rep.where()[i] != Location.OUTSIDE.code() || Double.isNaN(rep.errors()[i])) { // exact code comparison
                 continue;
             }
-            double d = SurfaceDistance.distance(mesh, p[3 * i], p[3 * i + 1], p[3 * i + 2]) / rb;
+            double d = Math.abs(surface.signedDistance(p[3 * i], p[3 * i + 1], p[3 * i + 2], w)) / rb;
             for (int b = 0; b < bins; b++) {
                 if (d >= DISTANCE_BINS[b] && d < DISTANCE_BINS[b + 1]) {
                     double e = rep.errors()[i];

@@ -68,6 +68,9 @@ public final class TableBuilder {
         }
         m.put("columns", layout.columns());
         m.put("exclude_interior", layout.excludeInterior());
+        if (layout.distance()) {
+            m.put("distance_column", true); // only when present, so older fingerprints stay valid
+        }
         m.put("omega", layout.omega());
         m.put("axis", List.of(layout.spinAxis()[0], layout.spinAxis()[1], layout.spinAxis()[2]));
         m.put("centre_of_mass", List.of(layout.centreOfMass()[0], layout.centreOfMass()[1],
@@ -173,6 +176,10 @@ public final class TableBuilder {
         m.put("effective_quantities", layout.effective()
             ? "eff_potential = U + 0.5*omega^2*|axis x (r - centre_of_mass)|^2, eff_a = g + omega^2 * r_perp "
               + "(rotating body-fixed frame; Coriolis not included)" : null);
+        if (layout.distance()) {
+            m.put("distance_to_surface", "distance_to_surface_m: exact signed distance from the node to the body's "
+                + "surface (closest point on the facets), negative inside, m");
+        }
         m.put("job_fingerprint", fingerprint);
         return m;
     }
@@ -184,6 +191,12 @@ public final class TableBuilder {
                 : c.endsWith("_m") ? "m" : c.equals("location") ? "1 inside, 0 outside, 0.5 on the surface" : "");
         }
         return u;
+    }
+
+    /** Adds the bound accuracy report to a written table's sidecar (rewritten atomically). */
+    public static void addAccuracy(Path data, Map<String, Object> meta, AccuracyCheck.BoundReport report) {
+        meta.put("accuracy", report.toJson());
+        TableFiles.writeSidecar(data, meta);
     }
 
     /** Adds the accuracy report to a written table's sidecar (rewritten atomically). */

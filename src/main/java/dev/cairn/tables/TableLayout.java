@@ -3,6 +3,7 @@ package dev.cairn.tables;
 import dev.cairn.gravity.FieldEvaluator;
 import dev.cairn.gravity.FieldSample;
 import dev.cairn.gravity.Location;
+import dev.cairn.mascon.SurfaceQuery;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -20,6 +21,8 @@ import java.util.List;
  * {@code eff_ax_m_s2, eff_ay_m_s2, eff_az_m_s2} {@code a = g + ω² r⊥}, {@code r⊥} the part of
  * {@code r − r_c} perpendicular to the spin axis through the centre of mass {@code r_c} (the body-fixed frame
  * rotates uniformly; Coriolis terms depend on velocity and are not tabulated).</li>
+ * <li>with a surface: {@code distance_to_surface_m}, the exact signed distance from the node to the body's surface
+ * (negative inside; {@link SurfaceQuery#signedDistance}).</li>
  * </ol>
  * With {@code excludeInterior} every value column except the position and the location of an interior node is NaN.
  *
@@ -30,9 +33,10 @@ import java.util.List;
  * @param omega           spin rate ω, rad/s (0 when not spinning)
  * @param spinAxis        unit spin axis, model frame
  * @param centreOfMass    centre of mass r_c, m, model frame
+ * @param surface         the body's surface for the distance column, or null for none
  */
 public record TableLayout(Grid grid, boolean gradient, boolean effective, boolean excludeInterior, double omega,
-                          double[] spinAxis, double[] centreOfMass) {
+                          double[] spinAxis, double[] centreOfMass, SurfaceQuery surface) {
     /** Column index of x. */
     public static final int X = 0;
     public static final int U = 3;
@@ -41,9 +45,23 @@ public record TableLayout(Grid grid, boolean gradient, boolean effective, boolea
     /** Number of always-present columns. */
     public static final int BASE_COLUMNS = 8;
 
+    /** Name of the distance column. */
+    public static final String DISTANCE = "distance_to_surface_m";
+
     public TableLayout {
         spinAxis = spinAxis.clone();
         centreOfMass = centreOfMass.clone();
+    }
+
+    /** A layout without the distance column. */
+    public TableLayout(Grid grid, boolean gradient, boolean effective, boolean excludeInterior, double omega,
+                       double[] spinAxis, double[] centreOfMass) {
+        this(grid, gradient, effective, excludeInterior, omega, spinAxis, centreOfMass, null);
+    }
+
+    /** Whether the distance column is present. */
+    public boolean distance() {
+        return surface != null;
     }
 
     /** Column names in order. */
@@ -56,12 +74,15 @@ public record TableLayout(Grid grid, boolean gradient, boolean effective, boolea
         if (effective) {
             c.addAll(List.of("eff_potential_m2_s2", "eff_ax_m_s2", "eff_ay_m_s2", "eff_az_m_s2"));
         }
+        if (surface != null) {
+            c.add(DISTANCE);
+        }
         return c;
     }
 
     /** Number of columns. */
     public int columnCount() {
-        return BASE_COLUMNS + (gradient ? 6 : 0) + (effective ? 4 : 0);
+        return BASE_COLUMNS + (gradient ? 6 : 0) + (effective ? 4 : 0) + (surface != null ? 1 : 0);
     }
 
     /** First gradient column, or -1. */
@@ -124,6 +145,11 @@ public record TableLayout(Grid grid, boolean gradient, boolean effective, boolea
             row[c + 1] = blank ? Double.NaN : sample[FieldSample.AX] + w2 * px;
             row[c + 2] = blank ? Double.NaN : sample[FieldSample.AY] + w2 * py;
             row[c + 3] = blank ? Double.NaN : sample[FieldSample.AZ] + w2 * pz;
+            c += 4;
+        }
+        if (surface != null) {
+            // Geometry, not field: kept for interior nodes too. The sample scratch is free again here.
+            row[c] = surface.signedDistance(x, y, z, sample);
         }
     }
 }

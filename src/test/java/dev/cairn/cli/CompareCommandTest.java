@@ -99,6 +99,42 @@ class CompareCommandTest {
         }
     }
 
+    /**
+     * Altitude shells: every point lies at the exact distance s from the surface, measured here by brute force over
+     * all facets (closest point on a triangle, Ericson 2005 §5.1.5, via {@code SurfaceQuery.windingAndDistance}, sign
+     * from the winding number); the radial variant lies s beyond the ray's outermost crossing, so its true height is
+     * at most s (the crossing point is on the surface).
+     */
+    @Test
+    void altitudeShellsLieAtTheExactHeightAboveTheSurface() {
+        dev.cairn.mesh.TriangleMesh mesh = dev.cairn.TestShapes.lumpySphere(3, 0.3, 4).transformed(
+            dev.cairn.TestShapes.rotation(1, 1, 0, 0.3), 800.0, new double[] {10, 0, -5});
+        dev.cairn.mass.MassProperties mp = dev.cairn.mass.MassPropertiesCalculator.compute(mesh, 2000);
+        dev.cairn.mascon.SurfaceQuery q = new dev.cairn.mascon.SurfaceQuery(mesh);
+        double[] com = mp.centerOfMass();
+        double[] dirs = CompareCommand.fibonacciDirections(300);
+        double[] surfR = new double[300];
+        for (int i = 0; i < 300; i++) {
+            surfR[i] = q.farthestHit(com[0], com[1], com[2], dirs[3 * i], dirs[3 * i + 1], dirs[3 * i + 2]);
+        }
+        double[] o = new double[2];
+        double largestRadialGap = 0;
+        for (double s : new double[] {5, 40, 400}) {
+            double[] t = CompareCommand.shellPoints(s, true, false, com, mp.brillouinRadius(), dirs, surfR, q);
+            double[] r = CompareCommand.shellPoints(s, true, true, com, mp.brillouinRadius(), dirs, surfR, q);
+            assertEquals(300, t.length / 3);
+            for (int i = 0; i < t.length / 3; i++) {
+                q.windingAndDistance(t[3 * i], t[3 * i + 1], t[3 * i + 2], o);
+                assertTrue(o[0] < 0.5, "outside");
+                assertEquals(s, o[1], 1e-9 * 1000, "exact height above the surface");
+                q.windingAndDistance(r[3 * i], r[3 * i + 1], r[3 * i + 2], o);
+                assertTrue(o[1] <= s * (1 + 1e-12), "true height never above the radial altitude");
+                largestRadialGap = Math.max(largestRadialGap, s - o[1]);
+            }
+        }
+        assertTrue(largestRadialGap > 1, "on a lumpy body the radial altitude differs from the true height");
+    }
+
     @Test
     void badOptionsAreOneLineErrors() {
         assertEquals(2, run("compare", obj.toString(), "--density", "2000", "--altitudes", "-5"));

@@ -95,6 +95,34 @@ class FieldCommandTest {
         checkRows(Files.readString(out), true);
     }
 
+    /**
+     * {@code --distance}: the signed distance to the box, by the elementary formula (outside: length of the excess
+     * over the faces; inside: minus the distance to the nearest face; common practice, no source).
+     */
+    @Test
+    void distanceColumnIsTheSignedDistanceToTheBox() {
+        CliRun r = CliRun.of("field", box.toString(), "--density", "2000", "--points", points.toString(),
+            "--distance");
+        assertEquals(0, r.exit(), r.err());
+        String[] lines = r.out().split("\n");
+        assertTrue(lines[0].endsWith(",location,distance_to_surface_m"), lines[0]);
+        double[] lo = {1, -2, 0.5};
+        double[] hi = {3, -0.5, 1.5};
+        for (int i = 0; i < POINTS.length; i++) {
+            String[] f = lines[i + 1].split(",");
+            assertEquals(10, f.length);
+            double out = 0;
+            double in = Double.POSITIVE_INFINITY;
+            for (int a = 0; a < 3; a++) {
+                double e = Math.max(lo[a] - POINTS[i][a], POINTS[i][a] - hi[a]);
+                out += Math.max(0, e) * Math.max(0, e);
+                in = Math.min(in, -e);
+            }
+            double expected = out > 0 ? Math.sqrt(out) : -in;
+            assertEquals(expected, Double.parseDouble(f[9]), 1e-12, lines[i + 1]);
+        }
+    }
+
     private static void badInput(String expectedInMessage, String... args) {
         CliRun r = CliRun.of(args);
         assertEquals(2, r.exit(), "exit code for bad input; stderr: " + r.err());

@@ -82,19 +82,37 @@ class TableCommandTest {
         assertEquals(0, run("--grid", "box", "--box", "-2000,2000,-2000,2000,-2000,2000", "--spacing", "250",
             "--gradient", "--effective", "--spin-period", "4h", "--check-samples", "300", "--out", out.toString()),
             lastErr);
-        assertTrue(lastOut.contains("Accuracy") && lastOut.contains("outside body") && lastOut.contains("Caution"),
-            lastOut);
+        assertTrue(lastOut.contains("Accuracy") && lastOut.contains("tricubic_hermite") && lastOut.contains("trilinear")
+            && lastOut.contains("effective_acceleration") && lastOut.contains("Caution"), lastOut);
         Map<String, Object> meta = TableFiles.readJson(TableFiles.sidecarPath(out));
         assertEquals(TableFiles.sha256(obj), ((Map<?, ?>) meta.get("model")).get("sha256"));
         assertEquals(TableFiles.sha256(out), meta.get("data_sha256"));
         Map<?, ?> acc = (Map<?, ?>) meta.get("accuracy");
-        Map<?, ?> outside = (Map<?, ?>) acc.get("outside_body");
-        assertTrue(((Number) outside.get("points")).intValue() > 0);
+        List<?> reports = (List<?>) acc.get("reports");
+        assertEquals(4, reports.size(), "tricubic and trilinear, gravity and effective acceleration");
+        Map<?, ?> first = (Map<?, ?>) reports.get(0);
+        assertEquals("tricubic_hermite", first.get("interpolation"));
+        List<?> bands = (List<?>) first.get("outside_body_by_distance");
+        assertEquals(4, bands.size(), "bands 0-1, 1-3, 3-10, > 10 cell sizes");
+        Map<?, ?> near = (Map<?, ?>) bands.get(0);
+        assertTrue(((Number) near.get("points")).intValue() > 0, "points next to the surface");
+        assertTrue(((Number) near.get("bound")).doubleValue() >= ((Number) near.get("max")).doubleValue());
         assertEquals(4 * 3600.0, ((Number) ((Map<?, ?>) meta.get("spin")).get("period_s")).doubleValue(), 1e-9);
         Path sph = dir.resolve("s.csv");
         assertEquals(0, run("--grid", "sphere", "--radii", "1200:3000:600", "--lat-step", "30", "--lon-step", "45",
-            "--check-samples", "100", "--out", sph.toString()), lastErr);
+            "--check-samples", "100", "--distance", "--out", sph.toString()), lastErr);
         assertEquals("csv", TableFiles.readJson(TableFiles.sidecarPath(sph)).get("data_format"));
+        // The distance column against a brute-force minimum over all facets (Ericson 2005 closest point), sign from
+        // the winding number (inside: 1).
+        dev.cairn.tables.Table t = TableFiles.read(sph);
+        int col = t.column("distance_to_surface_m");
+        assertTrue(col >= 0, "distance column present");
+        dev.cairn.mascon.SurfaceQuery q = new dev.cairn.mascon.SurfaceQuery(Shapes.icosphere(2, 1000));
+        double[] o = new double[2];
+        for (int i = 0; i < t.grid().nodeCount(); i++) {
+            q.windingAndDistance(t.value(i, 0), t.value(i, 1), t.value(i, 2), o);
+            assertEquals(o[0] > 0.5 ? -o[1] : o[1], t.value(i, col), 1e-9, "node " + i);
+        }
     }
 
     @Test

@@ -76,4 +76,42 @@ class SurfaceQueryTest {
         double u = q.farthestHit(0, 0, 0, 0.6, 0.0, 0.8);
         assertTrue(u <= 2.0 && u > 2.0 * 0.99, "inside the sphere, within the facets' sag: " + u);
     }
+
+    /**
+     * Signed distance through the bucket grid against the elementary signed distance of a box (outside: length of the
+     * excess over the faces; inside: minus the smallest distance to a face; common practice, no source), and on a
+     * lumpy body against a brute-force minimum over all facets with the sign of the winding number.
+     */
+    @Test
+    void signedDistanceThroughTheIndex() {
+        SurfaceQuery cube = new SurfaceQuery(Shapes.box(-1, -2, -3, 1, 2, 3));
+        double[] w = new double[4];
+        SplittableRandom rnd = new SplittableRandom(3);
+        double[] h = {1, 2, 3};
+        for (int i = 0; i < 3000; i++) {
+            double s = i < 1500 ? 4 : 400; // near and far points
+            double[] p = {s * (2 * rnd.nextDouble() - 1), s * (2 * rnd.nextDouble() - 1), s * (2 * rnd.nextDouble() - 1)};
+            double out = 0;
+            double in = Double.POSITIVE_INFINITY;
+            for (int a = 0; a < 3; a++) {
+                double e = Math.abs(p[a]) - h[a];
+                out += Math.max(0, e) * Math.max(0, e);
+                in = Math.min(in, -e);
+            }
+            double expected = out > 0 ? Math.sqrt(out) : -in;
+            assertEquals(expected, cube.signedDistance(p[0], p[1], p[2], w), DISTANCE_TOL * (1 + Math.abs(expected)));
+        }
+        TriangleMesh lumpy = dev.cairn.TestShapes.lumpySphere(3, 0.3, 8);
+        SurfaceQuery q = new SurfaceQuery(lumpy);
+        double[] o = new double[2];
+        for (int i = 0; i < 2000; i++) {
+            double s = i < 1000 ? 1.3 : 30;
+            double x = s * (2 * rnd.nextDouble() - 1);
+            double y = s * (2 * rnd.nextDouble() - 1);
+            double z = s * (2 * rnd.nextDouble() - 1);
+            q.windingAndDistance(x, y, z, o);
+            double expected = o[0] > 0.5 ? -o[1] : o[1];
+            assertEquals(expected, q.signedDistance(x, y, z, w), DISTANCE_TOL * (1 + Math.abs(expected)));
+        }
+    }
 }
