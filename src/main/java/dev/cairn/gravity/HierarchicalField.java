@@ -111,7 +111,7 @@ public final class HierarchicalField implements FieldModel {
 
     /** As above, reusing an exact field already built for {@code mesh} (the fallback and reference). */
     public HierarchicalField(TriangleMesh mesh, PolyhedronField exact, double tolerance, int threads) {
-        this(mesh, exact, tolerance, openingRatioFor(tolerance), degreeFor(tolerance), leafSizeFor(degreeFor(tolerance)),
+        this(mesh, exact, tolerance, openingRatioFor(tolerance), degreeFor(tolerance), leafSizeFor(mesh.facetCount()),
             threads);
     }
 
@@ -340,9 +340,17 @@ public final class HierarchicalField implements FieldModel {
         return Math.max(3, Math.min(MAX_DEGREE, deg));
     }
 
-    /** Leaf size: 32 facets (measured near the optimum of near-field against far-field work, docs/fast-field.md). */
-    static int leafSizeFor(int degree) {
-        return 32;
+    /**
+     * Leaf size for F facets: the median splits halve the facets at every level, so leaves hold F/2^depth facets;
+     * the depth is chosen so that they hold 24 to 48 (moments of the internal nodes then stay near 250–400 bytes per
+     * facet at the default tolerance, and the near field near its measured optimum, docs/fast-field.md).
+     */
+    static int leafSizeFor(int facets) {
+        int depth = 0;
+        while (depth < 30 && facets / Math.pow(2, depth + 1) >= 24) {
+            depth++;
+        }
+        return (int) Math.ceil(facets / Math.pow(2, depth));
     }
 
     private static double[] nearRecords(TriangleMesh mesh, int[] order) {
