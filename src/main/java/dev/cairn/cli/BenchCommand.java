@@ -38,6 +38,14 @@ public final class BenchCommand implements Callable<Integer> {
         + "point masses (0: skip; default ${DEFAULT-VALUE}).")
     int mascons = 20000;
 
+    @Option(names = "--baseline", negatable = true, description = "Also time the straightforward baseline kernel "
+        + "beside the product kernel on the same body and points (default ${DEFAULT-VALUE}).")
+    boolean baseline = true;
+
+    @Option(names = "--lumpy-level", paramLabel = "L", description = "Also compare kernel and baseline on a generated "
+        + "lumpy icosphere of 20·4^L facets (6: 81 920; 0: skip; default ${DEFAULT-VALUE}).")
+    int lumpyLevel = 0;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -74,6 +82,22 @@ public final class BenchCommand implements Callable<Integer> {
             double rate = (double) points * field.facetCount() / best;
             out.printf(Locale.ROOT, "threads %d: %d points in %.3f s = %.1f M facet-evaluations/s (%.1f M per thread)%n",
                 threads, points, best, rate / 1e6, rate / 1e6 / threads);
+        }
+        if (baseline) {
+            dev.cairn.bench.KernelBench.run(out, body.source().toString(), body.mesh(), field.density(), xyz, repeat,
+                all);
+        }
+        if (lumpyLevel > 0) {
+            if (lumpyLevel > 8) {
+                throw new picocli.CommandLine.ParameterException(spec.commandLine(),
+                    "--lumpy-level: " + lumpyLevel + " is above 8 (1.3 M facets)");
+            }
+            dev.cairn.mesh.TriangleMesh lumpy = dev.cairn.bench.KernelBench.lumpyIcosphere(lumpyLevel, 1000.0, 6);
+            double[] sphere = dev.cairn.bench.KernelBench.enclosingSphere(lumpy);
+            double[] pts = dev.cairn.bench.KernelBench.shellPoints(points, 1.5 * sphere[0],
+                new double[] {sphere[1], sphere[2], sphere[3]}, 42);
+            dev.cairn.bench.KernelBench.run(out, "lumpy icosphere level " + lumpyLevel, lumpy, field.density(), pts,
+                repeat, all);
         }
         if (mascons > 0) {
             benchMascons(out, body, xyz, all);
