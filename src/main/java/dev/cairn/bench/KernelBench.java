@@ -15,7 +15,9 @@ import java.util.SplittableRandom;
  * Side-by-side timing of the product polyhedron kernel ({@link PolyhedronField}) and the straightforward baseline
  * ({@link ReferenceKernel}) on the same body, the same points, in the same run: facet-evaluations per second
  * (points × facets / time, potential + acceleration, best of {@code repeat} after a warm-up) on 1 thread and on
- * {@code threads} threads, the speed-up, and the largest relative difference of U and of g between the two.
+ * {@code threads} threads, the speed-up, and the largest relative difference of U and of g between the two; then, on
+ * one thread, the same with the gradient tensor and at facet centroids (the survey's workload, where the kernel's
+ * on-facet and near-edge branches are taken).
  * Figures, not assertions (shared machines are noisy: only the ratio within one run means much).
  */
 public final class KernelBench {
@@ -38,8 +40,9 @@ public final class KernelBench {
         int n = xyz.length / 3;
         out.printf(Locale.ROOT, "Kernel vs baseline on %s: %d facets, %d points; product path: %s%n", label,
             product.facetCount(), n, PolyhedronField.VECTOR_PATH ? "vector lanes" : "scalar (no jdk.incubator.vector)");
-        warmUp(product, xyz);
-        warmUp(baseline, xyz);
+        double[] centroids = everyKth(mesh.facetCentroids(), n);
+        warmUp(product, xyz, centroids);
+        warmUp(baseline, xyz, centroids);
         double[] ref = BatchEvaluation.evaluate(baseline, xyz, false, threads, ProgressListener.NONE);
         double[] res = BatchEvaluation.evaluate(product, xyz, false, threads, ProgressListener.NONE);
         double[] rate = new double[4];
@@ -61,21 +64,47 @@ public final class KernelBench {
             dg = Math.max(dg, Math.sqrt(ex * ex + ey * ey + ez * ez) / FieldSample.accelerationNorm(ref, o));
         }
         out.printf(Locale.ROOT, "  max relative difference kernel vs baseline: U %.1e, g %.1e%n", du, dg);
+        double gBase = rate(baseline, xyz, repeat, 1, product.facetCount(), true);
+        double gKernel = rate(product, xyz, repeat, 1, product.facetCount(), true);
+        out.printf(Locale.ROOT, "  with gradient tensor, threads 1: baseline %.1f M/s, kernel %.1f M/s, speed-up %.2fx%n",
+            gBase / 1e6, gKernel / 1e6, gKernel / gBase);
+        double cBase = rate(baseline, centroids, repeat, 1, product.facetCount(), false);
+        double cKernel = rate(product, centroids, repeat, 1, product.facetCount(), false);
+        out.printf(Locale.ROOT, "  at %d facet centroids (survey workload), threads 1: baseline %.1f M/s, kernel %.1f M/s, "
+            + "speed-up %.2fx%n", centroids.length / 3, cBase / 1e6, cKernel / 1e6, cKernel / cBase);
     }
 
-    private static void warmUp(FieldModel model, double[] xyz) {
+    /** {@code n} points (or all if fewer) spread evenly through the 3-value records of {@code xyz}. */
+    private static double[] everyKth(double[] xyz, int n) {
+        int total = xyz.length / 3;
+        int m = Math.min(n, total);
+        double[] out = new double[3 * m];
+        for (int i = 0; i < m; i++) {
+            int k = (int) ((long) i * total / m);
+            System.arraycopy(xyz, 3 * k, out, 3 * i, 3);
+        }
+        return out;
+    }
+
+    /** About 3 s of short batches of every timed kind, so the JIT has compiled every branch before timing. */
+    private static void warmUp(FieldModel model, double[] xyz, double[] centroids) {
         double[] few = java.util.Arrays.copyOf(xyz, Math.min(xyz.length, 3 * 16));
-        long until = System.nanoTime() + 2_000_000_000L;
-        while (System.nanoTime() < until) {
-            BatchEvaluation.evaluate(model, few, false, 1, ProgressListener.NONE);
+        double[] fewC = java.util.Arrays.copyOf(centroids, Math.min(centroids.length, 3 * 16));
+        long until = System.nanoTime() + 3_000_000_000L;
+        for (int k = 0; System.nanoTime() < until; k++) {
+            BatchEvaluation.evaluate(model, k % 3 == 2 ? fewC : few, k % 3 == 1, 1, ProgressListener.NONE);
         }
     }
 
     private static double rate(FieldModel model, double[] xyz, int repeat, int threads, int facets) {
+        return rate(model, xyz, repeat, threads, facets, false);
+    }
+
+    private static double rate(FieldModel model, double[] xyz, int repeat, int threads, int facets, boolean gradient) {
         double best = Double.POSITIVE_INFINITY;
         for (int k = 0; k < repeat; k++) {
             long t0 = System.nanoTime();
-            BatchEvaluation.evaluate(model, xyz, false, threads, ProgressListener.NONE);
+            BatchEvaluation.evaluate(model, xyz, gradient, threads, ProgressListener.NONE);
             best = Math.min(best, (System.nanoTime() - t0) / 1e9);
         }
         return (double) (xyz.length / 3) * facets / best;

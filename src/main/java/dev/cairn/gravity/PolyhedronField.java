@@ -290,6 +290,59 @@ public final class PolyhedronField implements FieldModel {
     }
 
     /**
+     * Adds the terms of those edges among {@code edges[0..count)} (in that order) that lie within a few edge lengths
+     * of the point {@code (px, py, pz)} (relative to the vertex centroid), {@code e/(a+b) > }
+     * {@link KernelMath#ATANH_LIMIT}: {@code L_e} by {@link #edgeLogNear}, then the same operations as the main edge
+     * loop. Shared by the scalar path (one point) and the vector path (one lane at a time), so both give the same bits.
+     *
+     * @param dist vertex distances from the point, at {@code dist[stride·v + lane]} (read)
+     * @param acc  the running sums u, gx, gy, gz, −, txx .. tzz at {@code acc[k·accStride + lane]} (modified)
+     */
+    void addNearEdges(int[] edges, int count, double px, double py, double pz, double[] dist, int stride, int lane,
+                      double[] acc, int accStride, boolean gradient) {
+        int l = accStride == 1 ? 0 : lane;
+        for (int k = 0; k < count; k++) {
+            int e = edges[k];
+            int i = ev[2 * e];
+            int j = ev[2 * e + 1];
+            double a = dist[stride * i + lane];
+            double b = dist[stride * j + lane];
+            double s = a + b;
+            double len = elen[e];
+            if (!(len / s > KernelMath.ATANH_LIMIT)) {
+                continue; // far from this point (another lane's point is near): the main loop has its term
+            }
+            double rix = pv[3 * i] - px;
+            double riy = pv[3 * i + 1] - py;
+            double riz = pv[3 * i + 2] - pz;
+            double le = edgeLogNear(rix, riy, riz, pv[3 * j] - px, pv[3 * j + 1] - py, pv[3 * j + 2] - pz, a, b, s, len);
+            int q = 6 * e;
+            double exx = edy[q];
+            double exy = edy[q + 1];
+            double exz = edy[q + 2];
+            double eyy = edy[q + 3];
+            double eyz = edy[q + 4];
+            double ezz = edy[q + 5];
+            double erx = Math.fma(exz, riz, Math.fma(exy, riy, exx * rix));
+            double ery = Math.fma(eyz, riz, Math.fma(eyy, riy, exy * rix));
+            double erz = Math.fma(ezz, riz, Math.fma(eyz, riy, exz * rix));
+            double rer = Math.fma(riz, erz, Math.fma(riy, ery, rix * erx));
+            acc[l] = Math.fma(rer, le, acc[l]);
+            acc[accStride + l] = Math.fma(-erx, le, acc[accStride + l]);
+            acc[2 * accStride + l] = Math.fma(-ery, le, acc[2 * accStride + l]);
+            acc[3 * accStride + l] = Math.fma(-erz, le, acc[3 * accStride + l]);
+            if (gradient) {
+                acc[5 * accStride + l] = Math.fma(exx, le, acc[5 * accStride + l]);
+                acc[6 * accStride + l] = Math.fma(exy, le, acc[6 * accStride + l]);
+                acc[7 * accStride + l] = Math.fma(exz, le, acc[7 * accStride + l]);
+                acc[8 * accStride + l] = Math.fma(eyy, le, acc[8 * accStride + l]);
+                acc[9 * accStride + l] = Math.fma(eyz, le, acc[9 * accStride + l]);
+                acc[10 * accStride + l] = Math.fma(ezz, le, acc[10 * accStride + l]);
+            }
+        }
+    }
+
+    /**
      * Whether the facet term is skipped for a point (its ω taken as 0 and the point marked {@link Location#SURFACE}):
      * on a vertex of the facet ({@code prod = R1R2R3 = 0}), or within {@link #ON_FACET_TOLERANCE} of its plane and
      * inside it.
@@ -306,6 +359,10 @@ public final class PolyhedronField implements FieldModel {
     private final class Evaluator implements FieldEvaluator {
         /** Per vertex: offset x, y, z from the field point and its length, interleaved for locality. */
         private final double[] r = new double[4 * vertexCount];
+        /** Edges within a few edge lengths of the current point, in edge order. */
+        private final int[] nearEdges = new int[edgeCount];
+        /** The sums u, gx, gy, gz, (unused), txx, txy, txz, tyy, tyz, tzz while near edges are added. */
+        private final double[] acc = new double[11];
 
         @Override
         public void evaluate(double x, double y, double z, boolean gradient, double[] out, int o) {
@@ -336,6 +393,7 @@ public final class PolyhedronField implements FieldModel {
             final int[] ev = PolyhedronField.this.ev;
             final double[] edy = PolyhedronField.this.edy;
             final double[] elen = PolyhedronField.this.elen;
+            int nearCount = 0;
             for (int e = 0; e < edgeCount; e++) {
                 int ki = 4 * ev[2 * e];
                 int kj = 4 * ev[2 * e + 1];
@@ -347,9 +405,11 @@ public final class PolyhedronField implements FieldModel {
                 double len = elen[e];
                 double s = a + b;
                 double t = len / s;
-                double le = t > KernelMath.ATANH_LIMIT
-                    ? edgeLogNear(rix, riy, riz, r[kj], r[kj + 1], r[kj + 2], a, b, s, len)
-                    : KernelMath.twoAtanhSmall(t);
+                if (t > KernelMath.ATANH_LIMIT) {
+                    nearEdges[nearCount++] = e; // within a few edge lengths: added after this loop
+                    continue;
+                }
+                double le = KernelMath.twoAtanhSmall(t);
                 int q = 6 * e;
                 double exx = edy[q];
                 double exy = edy[q + 1];
@@ -373,6 +433,30 @@ public final class PolyhedronField implements FieldModel {
                     tyz = Math.fma(eyz, le, tyz);
                     tzz = Math.fma(ezz, le, tzz);
                 }
+            }
+            if (nearCount > 0) {
+                double[] acc = this.acc;
+                acc[0] = u;
+                acc[1] = gx;
+                acc[2] = gy;
+                acc[3] = gz;
+                acc[5] = txx;
+                acc[6] = txy;
+                acc[7] = txz;
+                acc[8] = tyy;
+                acc[9] = tyz;
+                acc[10] = tzz;
+                addNearEdges(nearEdges, nearCount, px, py, pz, r, 4, 3, acc, 1, gradient);
+                u = acc[0];
+                gx = acc[1];
+                gy = acc[2];
+                gz = acc[3];
+                txx = acc[5];
+                txy = acc[6];
+                txz = acc[7];
+                tyy = acc[8];
+                tyz = acc[9];
+                tzz = acc[10];
             }
             double omegaSum = 0;
             boolean onSurface = false;
