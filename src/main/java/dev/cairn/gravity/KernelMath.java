@@ -158,8 +158,9 @@ final class KernelMath {
      * {@code m = min(|y|, |x|)}, {@code M = max(|y|, |x|)} and the reduction point {@code c ∈ {0, 1/4, 1/2, 3/4, 1}}
      * nearest to {@code m/M}, {@code atan(m/M) = atan c + atan u}, {@code u = (m − cM)/(M + cm)}, {@code |u| ≤ 1/8},
      * and the Taylor series of {@code atan u} to u^19 (truncation below 4e-20 relative). Then the octant: M = |y|
-     * gives π/2 − a, x &lt; 0 gives π − a, and y &lt; 0 the sign. Accurate to a few ulp (checked in
-     * {@code KernelMathFastTest}).
+     * gives π/2 − a, x &lt; 0 gives π − a, and y &lt; 0 the sign (so, unlike {@link Math#atan2}, y = −0 counts as +0:
+     * the kernel never needs the difference, as a point with y = ±0 and x ≤ 0 lies on the facet, whose term it skips).
+     * Accurate to 2 ulp of {@link StrictMath#atan2} (measured by {@code KernelMathFastTest}).
      */
     static double atan2Fast(double y, double x) {
         double ay = Math.abs(y);
