@@ -3,6 +3,11 @@ package dev.cairn.gravity;
 /**
  * Fast, accurate {@code atan2} and {@code log} for the inner loops of the polyhedron kernel.
  *
+ * <p>The kernel's main loops use the table-free {@link #atan2Fast} and {@link #twoAtanhSmall} (polynomials, one
+ * division each), which the scalar and the vector path evaluate with the same operations; {@link #log} serves the
+ * few edges within a few edge lengths of a point. The table-based {@link #atan2} and {@link #log1pSmall} are the
+ * previous kernel's and are kept, with their tests, for comparison.
+ *
  * <p>On Java 17 {@link Math#atan2} calls the native fdlibm routine and {@link Math#log} costs about as much as the
  * rest of an edge term; together they took about 60 % of the kernel's time. Both functions here use the classic
  * table-plus-short-series reduction and agree with {@link Math} for the arguments the kernel passes (finite, and for
