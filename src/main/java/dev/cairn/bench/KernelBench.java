@@ -14,7 +14,8 @@ import java.util.SplittableRandom;
 /**
  * Side-by-side timing of the product polyhedron kernel ({@link PolyhedronField}) and the straightforward baseline
  * ({@link ReferenceKernel}) on the same body, the same points, in the same run: facet-evaluations per second
- * (points × facets / time, potential + acceleration, best of {@code repeat} after a warm-up) on 1 thread and on
+ * (points × facets / time, potential + acceleration, best of {@code repeat} after a warm-up, the runs of the two
+ * kernels alternating) on 1 thread and on
  * {@code threads} threads, the speed-up, and the largest relative difference of U and of g between the two; then, on
  * one thread, the same with the gradient tensor and at facet centroids (the survey's workload, where the kernel's
  * on-facet and near-edge branches are taken).
@@ -48,8 +49,9 @@ public final class KernelBench {
         double[] rate = new double[4];
         int[] counts = {1, threads};
         for (int c = 0; c < 2; c++) {
-            rate[2 * c] = rate(baseline, xyz, repeat, counts[c], product.facetCount());
-            rate[2 * c + 1] = rate(product, xyz, repeat, counts[c], product.facetCount());
+            double[] r = rates(baseline, product, xyz, repeat, counts[c], product.facetCount(), false);
+            rate[2 * c] = r[0];
+            rate[2 * c + 1] = r[1];
             out.printf(Locale.ROOT, "  threads %d: baseline %.1f M facet-evaluations/s, kernel %.1f M/s, speed-up %.2fx%n",
                 counts[c], rate[2 * c] / 1e6, rate[2 * c + 1] / 1e6, rate[2 * c + 1] / rate[2 * c]);
         }
@@ -64,12 +66,14 @@ public final class KernelBench {
             dg = Math.max(dg, Math.sqrt(ex * ex + ey * ey + ez * ez) / FieldSample.accelerationNorm(ref, o));
         }
         out.printf(Locale.ROOT, "  max relative difference kernel vs baseline: U %.1e, g %.1e%n", du, dg);
-        double gBase = rate(baseline, xyz, repeat, 1, product.facetCount(), true);
-        double gKernel = rate(product, xyz, repeat, 1, product.facetCount(), true);
+        double[] gr = rates(baseline, product, xyz, repeat, 1, product.facetCount(), true);
+        double gBase = gr[0];
+        double gKernel = gr[1];
         out.printf(Locale.ROOT, "  with gradient tensor, threads 1: baseline %.1f M/s, kernel %.1f M/s, speed-up %.2fx%n",
             gBase / 1e6, gKernel / 1e6, gKernel / gBase);
-        double cBase = rate(baseline, centroids, repeat, 1, product.facetCount(), false);
-        double cKernel = rate(product, centroids, repeat, 1, product.facetCount(), false);
+        double[] cr = rates(baseline, product, centroids, repeat, 1, product.facetCount(), false);
+        double cBase = cr[0];
+        double cKernel = cr[1];
         out.printf(Locale.ROOT, "  at %d facet centroids (survey workload), threads 1: baseline %.1f M/s, kernel %.1f M/s, "
             + "speed-up %.2fx%n", centroids.length / 3, cBase / 1e6, cKernel / 1e6, cKernel / cBase);
     }
@@ -96,18 +100,26 @@ public final class KernelBench {
         }
     }
 
-    private static double rate(FieldModel model, double[] xyz, int repeat, int threads, int facets) {
-        return rate(model, xyz, repeat, threads, facets, false);
+    /**
+     * Best facet-evaluations per second of {@code a} and of {@code b} over {@code repeat} runs each, the runs of the two
+     * alternating so that both see the same load of a shared machine.
+     */
+    private static double[] rates(FieldModel a, FieldModel b, double[] xyz, int repeat, int threads, int facets,
+                                  boolean gradient) {
+        double bestA = Double.POSITIVE_INFINITY;
+        double bestB = Double.POSITIVE_INFINITY;
+        for (int k = 0; k < repeat; k++) {
+            bestA = Math.min(bestA, seconds(a, xyz, threads, gradient));
+            bestB = Math.min(bestB, seconds(b, xyz, threads, gradient));
+        }
+        double evals = (double) (xyz.length / 3) * facets;
+        return new double[] {evals / bestA, evals / bestB};
     }
 
-    private static double rate(FieldModel model, double[] xyz, int repeat, int threads, int facets, boolean gradient) {
-        double best = Double.POSITIVE_INFINITY;
-        for (int k = 0; k < repeat; k++) {
-            long t0 = System.nanoTime();
-            BatchEvaluation.evaluate(model, xyz, gradient, threads, ProgressListener.NONE);
-            best = Math.min(best, (System.nanoTime() - t0) / 1e9);
-        }
-        return (double) (xyz.length / 3) * facets / best;
+    private static double seconds(FieldModel model, double[] xyz, int threads, boolean gradient) {
+        long t0 = System.nanoTime();
+        BatchEvaluation.evaluate(model, xyz, gradient, threads, ProgressListener.NONE);
+        return (System.nanoTime() - t0) / 1e9;
     }
 
     /**
