@@ -16,8 +16,9 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code cairn bench}: throughput of the polyhedron kernel in facet-evaluations per second (points × facets / time,
- * potential + acceleration), single thread and all threads, and bytes of precomputed state per facet; then the
- * mascon kernel in point-mass evaluations per second on a tetrahedral mascon set of the same body. Figures, not
+ * potential + acceleration), single thread and all threads, and bytes of precomputed state per facet; then the same
+ * kernel side by side with the straightforward baseline ({@link dev.cairn.bench.KernelBench}, on the model and, with
+ * {@code --lumpy-level}, on a generated lumpy icosphere); then the mascon kernel in point-mass evaluations per second on a tetrahedral mascon set of the same body. Figures, not
  * assertions: machines are shared and noisy, so speed targets are checked here and never in unit tests.
  */
 @Command(name = "bench", mixinStandardHelpOptions = true,
