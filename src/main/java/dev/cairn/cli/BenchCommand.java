@@ -39,9 +39,9 @@ public final class BenchCommand implements Callable<Integer> {
         + "point masses (0: skip; default ${DEFAULT-VALUE}).")
     int mascons = 20000;
 
-    @Option(names = "--baseline", negatable = true, description = "Also time the straightforward baseline kernel "
-        + "beside the product kernel on the same body and points (default ${DEFAULT-VALUE}).")
-    boolean baseline = true;
+    @Option(names = "--skip-baseline", description = "Do not time the straightforward baseline kernel beside the "
+        + "product kernel (timed by default on the same body and points).")
+    boolean skipBaseline;
 
     @Option(names = "--lumpy-level", paramLabel = "L", description = "Also compare kernel and baseline on a generated "
         + "lumpy icosphere of 20·4^L facets (6: 81 920; 0: skip; default ${DEFAULT-VALUE}).")
@@ -84,7 +84,7 @@ public final class BenchCommand implements Callable<Integer> {
             out.printf(Locale.ROOT, "threads %d: %d points in %.3f s = %.1f M facet-evaluations/s (%.1f M per thread)%n",
                 threads, points, best, rate / 1e6, rate / 1e6 / threads);
         }
-        if (baseline) {
+        if (!skipBaseline) {
             dev.cairn.bench.KernelBench.run(out, body.source().toString(), body.mesh(), field.density(), xyz, repeat,
                 all);
         }
