@@ -52,6 +52,10 @@ public final class BenchCommand implements Callable<Integer> {
 
     @Override
     public Integer call() {
+        if (lumpyLevel < 0 || lumpyLevel > 8) {
+            throw new picocli.CommandLine.ParameterException(spec.commandLine(),
+                "--lumpy-level: " + lumpyLevel + " is outside 0..8 (8: 1.3 M facets)");
+        }
         BodyModel body = model.load(null);
         if (!body.hasDensity()) {
             body = dev.cairn.io.ModelLoader.load(model.modelPath(),
@@ -89,10 +93,6 @@ public final class BenchCommand implements Callable<Integer> {
                 all);
         }
         if (lumpyLevel > 0) {
-            if (lumpyLevel > 8) {
-                throw new picocli.CommandLine.ParameterException(spec.commandLine(),
-                    "--lumpy-level: " + lumpyLevel + " is above 8 (1.3 M facets)");
-            }
             dev.cairn.mesh.TriangleMesh lumpy = dev.cairn.bench.KernelBench.lumpyIcosphere(lumpyLevel, 1000.0, 6);
             double[] sphere = dev.cairn.bench.KernelBench.enclosingSphere(lumpy);
             double[] pts = dev.cairn.bench.KernelBench.shellPoints(points, 1.5 * sphere[0],
