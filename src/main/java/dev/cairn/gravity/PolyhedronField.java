@@ -45,7 +45,7 @@ import dev.cairn.mesh.TriangleMesh;
  * <li>The <b>vector path</b> ({@link VectorKernel}, when the module {@code jdk.incubator.vector} is present, as the
  *     launcher and the test setup arrange): {@link FieldEvaluator#evaluateBatch} evaluates 8 field points (the lanes of
  *     a 512-bit vector; 4 on 256-bit machines) per pass over the vertex, edge and facet arrays, facet and edge data
- *     broadcast to all lanes. Measured 12–14 times the straightforward baseline's facet-evaluations per second on
+ *     broadcast to all lanes. Measured 12–22 times the straightforward baseline's facet-evaluations per second on
  *     one thread ({@code cairn bench}, docs/benchmarks.md).</li>
  * <li>The <b>scalar path</b>, one point per pass, when the module is absent (or {@code -Dcairn.kernel.scalar=true}),
  *     and for single-point {@link FieldEvaluator#evaluate} calls: about 2.3 times the baseline.</li>
