@@ -17,8 +17,9 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code cairn bench}: throughput of the polyhedron kernel in facet-evaluations per second (points × facets / time,
- * potential + acceleration), single thread and all threads, and bytes of precomputed state per facet; then the
- * mascon kernel in point-mass evaluations per second on a tetrahedral mascon set of the same body. Figures, not
+ * potential + acceleration), single thread and all threads, and bytes of precomputed state per facet; then the same
+ * kernel side by side with the straightforward baseline ({@link dev.cairn.bench.KernelBench}, on the model and, with
+ * {@code --lumpy-level}, on a generated lumpy icosphere); then the mascon kernel in point-mass evaluations per second on a tetrahedral mascon set of the same body. Figures, not
  * assertions: machines are shared and noisy, so speed targets are checked here and never in unit tests.
  */
 @Command(name = "bench", mixinStandardHelpOptions = true,
@@ -58,12 +59,23 @@ public final class BenchCommand implements Callable<Integer> {
     @Option(names = "--survey-largest", description = "With --fast-field: also time a whole survey of the largest "
         + "body at tolerance 1e-9.")
     boolean surveyLargest;
+    @Option(names = "--skip-baseline", description = "Do not time the straightforward baseline kernel beside the "
+        + "product kernel (timed by default on the same body and points).")
+    boolean skipBaseline;
+
+    @Option(names = "--lumpy-level", paramLabel = "L", description = "Also compare kernel and baseline on a generated "
+        + "lumpy icosphere of 20·4^L facets (6: 81 920; 0: skip; default ${DEFAULT-VALUE}).")
+    int lumpyLevel = 0;
 
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
     @Override
     public Integer call() {
+        if (lumpyLevel < 0 || lumpyLevel > 8) {
+            throw new picocli.CommandLine.ParameterException(spec.commandLine(),
+                "--lumpy-level: " + lumpyLevel + " is outside 0..8 (8: 1.3 M facets)");
+        }
         BodyModel body = model.load(null);
         if (!body.hasDensity()) {
             body = dev.cairn.io.ModelLoader.load(model.modelPath(),
@@ -95,6 +107,18 @@ public final class BenchCommand implements Callable<Integer> {
             double rate = (double) points * field.facetCount() / best;
             out.printf(Locale.ROOT, "threads %d: %d points in %.3f s = %.1f M facet-evaluations/s (%.1f M per thread)%n",
                 threads, points, best, rate / 1e6, rate / 1e6 / threads);
+        }
+        if (!skipBaseline) {
+            dev.cairn.bench.KernelBench.run(out, body.source().toString(), body.mesh(), field.density(), xyz, repeat,
+                all);
+        }
+        if (lumpyLevel > 0) {
+            dev.cairn.mesh.TriangleMesh lumpy = dev.cairn.bench.KernelBench.lumpyIcosphere(lumpyLevel, 1000.0, 6);
+            double[] sphere = dev.cairn.bench.KernelBench.enclosingSphere(lumpy);
+            double[] pts = dev.cairn.bench.KernelBench.shellPoints(points, 1.5 * sphere[0],
+                new double[] {sphere[1], sphere[2], sphere[3]}, 42);
+            dev.cairn.bench.KernelBench.run(out, "lumpy icosphere level " + lumpyLevel, lumpy, field.density(), pts,
+                repeat, all);
         }
         if (mascons > 0) {
             benchMascons(out, body, xyz, all);

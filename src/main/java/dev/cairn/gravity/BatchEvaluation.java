@@ -4,8 +4,10 @@ import dev.cairn.util.ParallelChunks;
 import dev.cairn.util.ProgressListener;
 
 /**
- * Evaluates a {@link FieldModel} at many points in parallel. Each point is computed by exactly the same
- * arithmetic whatever the thread count, so results are bit-identical for any number of threads.
+ * Evaluates a {@link FieldModel} at many points in parallel, a chunk of {@link ParallelChunks#CHUNK} points per
+ * {@link FieldEvaluator#evaluateBatch} call (so a model can evaluate several points per pass over its data). Each point
+ * is computed by exactly the same arithmetic whatever the thread count and chunking, so results are bit-identical for
+ * any number of threads.
  */
 public final class BatchEvaluation {
     private BatchEvaluation() {
@@ -23,11 +25,8 @@ public final class BatchEvaluation {
                                     ProgressListener progress) {
         int n = xyz.length / 3;
         double[] out = new double[n * FieldSample.SIZE];
-        ParallelChunks.run(n, threads, model::newEvaluator, (ev, from, to) -> {
-            for (int i = from; i < to; i++) {
-                ev.evaluate(xyz[3 * i], xyz[3 * i + 1], xyz[3 * i + 2], gradient, out, i * FieldSample.SIZE);
-            }
-        }, progress);
+        ParallelChunks.run(n, threads, model::newEvaluator,
+            (ev, from, to) -> ev.evaluateBatch(xyz, from, to, gradient, out), progress);
         return out;
     }
 
