@@ -40,8 +40,8 @@ public final class ModelOptions {
     boolean debug;
 
     @Option(names = "--tolerance", paramLabel = "REL", description = "Relative tolerance on |g| and U of the "
-        + "hierarchical (fast) polyhedron field, 1e-13 to 1e-2 (default: 1e-10, used for bodies of 4096 facets or "
-        + "more and jobs of 1000 points or more; docs/fast-field.md).")
+        + "hierarchical (fast) polyhedron field, 1e-13 to 1e-2; giving it selects that model (default: 1e-10, used "
+        + "for jobs of 1000 points or more on bodies of 4096 facets or more, surveys from 60000; docs/fast-field.md).")
     Double tolerance;
 
     @Option(names = "--exact", description = "Evaluate the polyhedron field by the exact direct sum (O(facets) per "

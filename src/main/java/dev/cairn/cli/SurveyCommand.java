@@ -86,7 +86,7 @@ public final class SurveyCommand implements Callable<Integer> {
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
         }
-        body.fieldModel(); // fail early, with a one-line error, when the field cannot be built
+        body.surfaceFieldModel(); // fail early, with a one-line error, when the field cannot be built
         SurveyResult r;
         try (ProgressBar bar = new ProgressBar("survey")) {
             r = Survey.run(body, params, bar);

@@ -171,11 +171,20 @@ public final class BodyModel {
      * {@link #fieldSettings()}, the hierarchical model only where it pays (large body, many points).
      */
     public synchronized FieldModel fieldModel(long points) {
+        return fieldModel(points, false);
+    }
+
+    /** The field for a survey: {@link #fieldModel(long)} for one point per facet, all on the surface. */
+    public FieldModel surfaceFieldModel() {
+        return fieldModel(mesh.facetCount(), true);
+    }
+
+    private synchronized FieldModel fieldModel(long points, boolean onSurface) {
         if (regions != null) {
-            return regions.superpositionField(fieldSettings, points);
+            return regions.superpositionField(fieldSettings, points, onSurface);
         }
         PolyhedronField exact = polyhedronField();
-        if (!fieldSettings.hierarchical(mesh.facetCount(), points)) {
+        if (!fieldSettings.hierarchical(mesh.facetCount(), points, onSurface)) {
             return exact;
         }
         double tol = fieldSettings.effectiveTolerance();

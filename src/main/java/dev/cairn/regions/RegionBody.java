@@ -119,16 +119,22 @@ public final class RegionBody {
      * The polyhedron route with each region's polyhedron evaluated as {@code settings} says for a job of
      * {@code points} points (the hierarchical model per region where it pays).
      */
-    public synchronized FieldModel superpositionField(dev.cairn.gravity.FieldSettings settings, long points) {
+    public FieldModel superpositionField(dev.cairn.gravity.FieldSettings settings, long points) {
+        return superpositionField(settings, points, false);
+    }
+
+    /** As above; {@code onSurface} for a job whose points lie on the outer surface (a survey). */
+    public synchronized FieldModel superpositionField(dev.cairn.gravity.FieldSettings settings, long points,
+                                                      boolean onSurface) {
         FieldModel exactSum = exactSuperposition();
         boolean any = false;
         for (Region r : regions) {
-            any |= settings.hierarchical(r.mesh().facetCount(), points);
+            any |= settings.hierarchical(r.mesh().facetCount(), points, onSurface);
         }
         if (!any) {
             return exactSum;
         }
-        String key = settings.toString();
+        String key = settings + (onSurface ? " surface" : "");
         if (fastFields.containsKey(key)) {
             return fastFields.get(key);
         }
@@ -137,7 +143,7 @@ public final class RegionBody {
         for (int i = 0; i < regions.size(); i++) {
             Region r = regions.get(i);
             dev.cairn.gravity.PolyhedronField pf = (dev.cairn.gravity.PolyhedronField) exact.part(i);
-            parts.add(settings.hierarchical(r.mesh().facetCount(), points)
+            parts.add(settings.hierarchical(r.mesh().facetCount(), points, onSurface)
                 ? new dev.cairn.gravity.HierarchicalField(r.mesh(), pf, settings.effectiveTolerance(),
                     dev.cairn.util.ParallelChunks.defaultThreads())
                 : pf);

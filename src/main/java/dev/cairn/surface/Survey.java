@@ -84,7 +84,7 @@ public final class Survey {
      * @throws dev.cairn.io.InputException when the field cannot be built (surface not fit, no density)
      */
     public static SurveyResult run(BodyModel body, SurveyParameters params, ProgressListener progress) {
-        SurveyTarget t = new SurveyTarget(body.name(), body.source(), body.mesh(), body.edges(), body.fieldModel(),
+        SurveyTarget t = new SurveyTarget(body.name(), body.source(), body.mesh(), body.edges(), body.surfaceFieldModel(),
             body.massProperties().centerOfMass(), body.spin(), body.density(), body.massProperties().volume());
         return run(t, params, progress);
     }
