@@ -146,10 +146,28 @@ public final class CairnMain implements Runnable {
         }
     }
 
+    /** Parses an option value as a finite decimal number. */
+    static Double strictDouble(String text) {
+        String t = text.strip();
+        if (!dev.cairn.io.Numbers.isDecimal(t)) {
+            throw new CommandLine.TypeConversionException(Messages.quote(text) + " is not a decimal number");
+        }
+        double v = Double.parseDouble(t);
+        if (!Double.isFinite(v)) {
+            throw new CommandLine.TypeConversionException(Messages.quote(text) + " is too large (not a finite number)");
+        }
+        return v;
+    }
+
     /** The configured picocli command line with Cairn's error handling. */
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new CairnMain());
         cl.setUsageHelpWidth(USAGE_WIDTH);
+        // Every number option of every command: plain decimal syntax and finite (no hex floats, f/d suffixes,
+        // NaN, Infinity or overflow to infinity).
+        CommandLine.ITypeConverter<Double> strict = CairnMain::strictDouble;
+        cl.registerConverter(Double.class, strict);
+        cl.registerConverter(Double.TYPE, strict);
         cl.setErr(new PrintWriter(new SafeLineWriter(new PrintWriter(System.err, true)), true));
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             boolean debug = parseResult.originalArgs().contains("--debug");

@@ -2,7 +2,11 @@ package dev.cairn.cli;
 
 import dev.cairn.gravity.FieldModel;
 import dev.cairn.io.BodyModel;
+import dev.cairn.io.AtomicFiles;
 import dev.cairn.io.InputException;
+import dev.cairn.io.MemoryBudget;
+import dev.cairn.io.Numbers;
+import dev.cairn.io.OutputLock;
 import dev.cairn.io.ModelSidecar;
 import dev.cairn.io.PointsCsv;
 import dev.cairn.tables.AccuracyCheck;
@@ -161,6 +165,10 @@ public final class TableCommand implements Callable<Integer> {
         if (threads < 1) {
             throw new InputException("--threads: must be at least 1, got " + threads);
         }
+        requireCount("--check-samples", checkSamples, MAX_CHECK_SAMPLES);
+        if (chunkNodes < 1) {
+            throw new InputException("--chunk-nodes: must be at least 1, got " + chunkNodes);
+        }
         if (gridKind == null && !bench) {
             throw new InputException("--grid: missing (box, sphere or points)");
         }
@@ -176,6 +184,7 @@ public final class TableCommand implements Callable<Integer> {
             return bench(body, field, outw);
         }
         Grid grid = grid(body);
+        requireGridInRange(grid);
         if (grid.nodeCount() > maxNodes && !force) {
             throw new InputException("--grid " + gridKind + ": " + grid.nodeCount() + " nodes is more than the limit of "
                 + maxNodes + "; use --force (or raise --max-nodes) if you mean it");
@@ -206,6 +215,79 @@ public final class TableCommand implements Callable<Integer> {
                 + "ones (give --spin-period or spin_period_s in the model sidecar)");
         }
         TableLayout layout = layout(body, grid);
+        try (OutputLock lock = OutputLock.acquire(out)) {
+            AtomicFiles.cleanStale(out, 0);
+            AtomicFiles.cleanStale(TableFiles.sidecarPath(out), 0);
+            double bytes = 8.0 * grid.nodeCount() * layout.columnCount();
+            MemoryBudget.requireDisk(out, 2 * bytes + (1 << 20), "the table (" + grid.nodeCount() + " nodes x "
+                + layout.columnCount() + " columns, with its checkpoints)");
+            if (shard == null && checkSamples > 0 && !(grid instanceof PointGrid)) {
+                // the accuracy check holds the table and its interpolation data (about 4 copies) in memory
+                MemoryBudget.require(4 * bytes, "the accuracy check of a table of " + grid.nodeCount() + " nodes");
+            }
+            Object before = stamp(out);
+            Object beforeSide = stamp(TableFiles.sidecarPath(out));
+            try {
+                return build(body, field, grid, layout, fmt, shardIndex, shardCount, err, outw);
+            } catch (RuntimeException | Error e) {
+                // A failed run leaves nothing under its final names: remove what this run wrote there.
+                if (!java.util.Objects.equals(before, stamp(out))) {
+                    removeQuietly(out);
+                }
+                if (!java.util.Objects.equals(beforeSide, stamp(TableFiles.sidecarPath(out)))) {
+                    removeQuietly(TableFiles.sidecarPath(out));
+                }
+                throw e;
+            }
+        }
+    }
+
+    /** Largest --check-samples accepted. */
+    static final int MAX_CHECK_SAMPLES = 10_000_000;
+
+    static void requireCount(String option, long value, long max) {
+        if (value < 0 || value > max) {
+            throw new InputException(option + ": must be from 0 to " + max + ", got " + value);
+        }
+    }
+
+    /** Identity of a file's current content (file key and modification time), or null when absent. */
+    static Object stamp(Path p) {
+        try {
+            var a = Files.readAttributes(p, java.nio.file.attribute.BasicFileAttributes.class);
+            return java.util.List.of(String.valueOf(a.fileKey()), a.lastModifiedTime(), a.size());
+        } catch (java.io.IOException e) {
+            return null;
+        }
+    }
+
+    static void removeQuietly(Path p) {
+        try {
+            Files.deleteIfExists(p);
+        } catch (java.io.IOException ignored) {
+            // best effort: the original failure is what the user needs to see
+        }
+    }
+
+    /** Refuses grids whose nodes lie beyond the field-point range (squares would overflow: NaN rows). */
+    private static void requireGridInRange(Grid grid) {
+        double far = 0;
+        if (grid instanceof BoxGrid b) {
+            for (int a = 0; a < 3; a++) {
+                far = Math.max(far, Math.max(Math.abs(b.coordinate(a, 0)), Math.abs(b.coordinate(a, b.counts()[a] - 1))));
+            }
+        } else if (grid instanceof SphereGrid g) {
+            double c = Math.max(Math.abs(g.centre()[0]), Math.max(Math.abs(g.centre()[1]), Math.abs(g.centre()[2])));
+            far = c + g.radii()[g.radii().length - 1];
+        }
+        if (!(far <= Numbers.MAX_POINT_M)) {
+            throw new InputException("--grid: nodes reach " + String.format(Locale.ROOT, "%.3g", far) + " m from the "
+                + "origin, beyond the " + Numbers.MAX_POINT_M + " m this program accepts for field points");
+        }
+    }
+
+    private int build(BodyModel body, FieldModel field, Grid grid, TableLayout layout, String fmt, int shardIndex,
+                      int shardCount, PrintWriter err, PrintWriter outw) {
         TableBuilder.Request req = new TableBuilder.Request(field, layout, out, fmt, chunkNodes, resume, shardIndex,
             shardCount, threads, modelInfo(body), VersionProvider.version());
         long t0 = System.nanoTime();
@@ -363,6 +445,11 @@ public final class TableCommand implements Callable<Integer> {
         m.put("sha256", TableFiles.sha256(body.source()));
         Path side = ModelSidecar.pathFor(body.source());
         m.put("sidecar_sha256", body.sidecar() != null && Files.isRegularFile(side) ? TableFiles.sha256(side) : null);
+        Map<String, Object> files = new LinkedHashMap<>();
+        for (Path f : body.files()) {
+            files.put(f.toAbsolutePath().normalize().toString(), TableFiles.sha256(f));
+        }
+        m.put("files_sha256", files);
         m.put("length_unit_of_file", body.lengthUnit());
         m.put("density_kg_m3", body.density());
         m.put("gm_m3_s2", body.gm());

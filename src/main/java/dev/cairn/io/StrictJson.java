@@ -133,6 +133,11 @@ public final class StrictJson {
             return new InputException(file + ": key '" + prefix + key + "' " + problem);
         }
 
+        /** The underlying map (read only by convention). */
+        public Map<?, ?> raw() {
+            return map;
+        }
+
         public boolean has(String key) {
             return map.get(key) != null;
         }

@@ -416,7 +416,7 @@ class ReaderFuzzTest {
         Path pts = write(dir.resolve("pts.csv"), POINTS);
         String[] sane = {"-1500,1500,-1500,1500,-1500,1500", "700", "4", "1000,1500", "1200:2400:600", "45", "90",
             "0,0,0", "3", "60", "200"};
-        int n = cases(160);
+        int n = cases(120);
         for (int i = 0; i < n; i++) {
             Path out = dir.resolve("g" + (i % 3) + (i % 5 == 0 ? ".csv" : ".npy"));
             List<String> a = new ArrayList<>(List.of("table", obj.toString(), "--density", "2000", "--threads", "1"));
@@ -475,7 +475,7 @@ class ReaderFuzzTest {
         copyTree(work, pristine);
         Stats st = new Stats("table-state");
         byte[] refBytes = Files.readAllBytes(ref);
-        int n = cases(160);
+        int n = cases(120);
         for (int i = 0; i < n; i++) {
             deleteTree(work);
             copyTree(pristine, work);
