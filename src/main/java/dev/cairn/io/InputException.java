@@ -52,6 +52,21 @@ public class InputException extends RuntimeException {
         if (msg.length() > 160) {
             msg = msg.substring(0, 160) + "...";
         }
+        msg = msg.replace(" (but might if coercion using `CoercionConfig` was enabled)", "");
+        if (e instanceof com.fasterxml.jackson.databind.JsonMappingException jm && !jm.getPath().isEmpty()
+            && !msg.startsWith("Unrecognized field")) {
+            StringBuilder key = new StringBuilder();
+            for (com.fasterxml.jackson.databind.JsonMappingException.Reference r : jm.getPath()) {
+                if (r.getFieldName() != null) {
+                    key.append(key.length() > 0 ? "." : "").append(r.getFieldName());
+                } else if (r.getIndex() >= 0) {
+                    key.append('[').append(r.getIndex() + 1).append(']');
+                }
+            }
+            if (key.length() > 0) {
+                msg = "key " + Messages.quote(key.toString()) + ": " + msg;
+            }
+        }
         if (msg.startsWith("Unrecognized field")) {
             msg = msg.replaceFirst("\\s*\\(class [^)]*\\).*", "")
                 + (keysDoc == null ? "" : " (see " + keysDoc + " for the keys)");
