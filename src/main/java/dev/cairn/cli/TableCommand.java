@@ -242,6 +242,27 @@ public final class TableCommand implements Callable<Integer> {
         }
     }
 
+    /**
+     * A table this job finished earlier whose run was stopped during its accuracy check (checkpoints already
+     * removed, data and sidecar written, no accuracy report): with --resume only the check is run again. Null when
+     * there is no such table (then the checkpoints decide).
+     */
+    private TableBuilder.Outcome finishedEarlier(TableLayout layout, Map<String, Object> modelInfo, PrintWriter err) {
+        Path side = TableFiles.sidecarPath(out);
+        if (Files.exists(TableJob.workDir(out)) || !Files.isRegularFile(out) || !Files.isRegularFile(side)) {
+            return null;
+        }
+        Map<String, Object> meta = TableFiles.readJson(side);
+        dev.cairn.io.StrictJson.Fields f = new dev.cairn.io.StrictJson.Fields(meta, side, "");
+        if (meta.containsKey("accuracy") || meta.containsKey("shard") || !f.has("job_fingerprint")
+            || !f.string("job_fingerprint").equals(TableBuilder.fingerprint(layout, modelInfo))
+            || !TableFiles.sha256(out).equals(f.optString("data_sha256"))) {
+            return null;
+        }
+        err.println("cairn: " + out + " is complete; running its accuracy check again");
+        return new TableBuilder.Outcome(true, new TableJob.Result(true, f.optString("created_utc"), 0, 0), meta);
+    }
+
     /** Largest --check-samples accepted. */
     static final int MAX_CHECK_SAMPLES = 10_000_000;
 
@@ -291,11 +312,14 @@ public final class TableCommand implements Callable<Integer> {
         TableBuilder.Request req = new TableBuilder.Request(field, layout, out, fmt, chunkNodes, resume, shardIndex,
             shardCount, threads, modelInfo(body), VersionProvider.version());
         long t0 = System.nanoTime();
-        TableBuilder.Outcome outcome;
+        TableBuilder.Outcome outcome = resume && shard == null ? finishedEarlier(layout, req.modelInfo(), err) : null;
+        boolean recheck = outcome != null;
         java.util.concurrent.atomic.AtomicInteger chunks = new java.util.concurrent.atomic.AtomicInteger();
-        try (ProgressBar bar = new ProgressBar(shard != null ? "table " + shard : "table")) {
-            outcome = TableBuilder.build(req, bar,
-                () -> stopAfterChunks > 0 && chunks.incrementAndGet() >= stopAfterChunks, now());
+        if (outcome == null) {
+            try (ProgressBar bar = new ProgressBar(shard != null ? "table " + shard : "table")) {
+                outcome = TableBuilder.build(req, bar,
+                    () -> stopAfterChunks > 0 && chunks.incrementAndGet() >= stopAfterChunks, now());
+            }
         }
         double secs = (System.nanoTime() - t0) / 1e9;
         if (!outcome.complete()) {
@@ -304,15 +328,17 @@ public final class TableCommand implements Callable<Integer> {
             err.flush();
             return EXIT_INCOMPLETE;
         }
-        int computedNodes = shard != null ? ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("end_node"))
-            .intValue() - ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("first_node")).intValue()
-            : grid.nodeCount();
-        err.printf(Locale.ROOT, "cairn: wrote %s (%s, %d nodes x %d columns) and %s%s%n", out,
-            shard != null ? "npy shard" : fmt, computedNodes, layout.columnCount(), TableFiles.sidecarPath(out).getFileName(),
-            outcome.job().chunksReused() > 0 ? " (resumed: " + outcome.job().chunksReused() + " chunk(s) reused)" : "");
-        if (outcome.job().chunksReused() == 0) {
-            err.printf(Locale.ROOT, "cairn: %.2f s, %.0f nodes/s with %d thread(s)%n", secs, computedNodes / secs,
-                threads);
+        if (!recheck) {
+            int computedNodes = shard != null ? ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("end_node"))
+                .intValue() - ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("first_node")).intValue()
+                : grid.nodeCount();
+            err.printf(Locale.ROOT, "cairn: wrote %s (%s, %d nodes x %d columns) and %s%s%n", out,
+                shard != null ? "npy shard" : fmt, computedNodes, layout.columnCount(), TableFiles.sidecarPath(out).getFileName(),
+                outcome.job().chunksReused() > 0 ? " (resumed: " + outcome.job().chunksReused() + " chunk(s) reused)" : "");
+            if (outcome.job().chunksReused() == 0) {
+                err.printf(Locale.ROOT, "cairn: %.2f s, %.0f nodes/s with %d thread(s)%n", secs, computedNodes / secs,
+                    threads);
+            }
         }
         if (shard == null && checkSamples > 0 && !(grid instanceof PointGrid)) {
             Table table = TableFiles.read(out);

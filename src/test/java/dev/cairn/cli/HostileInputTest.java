@@ -350,6 +350,20 @@ class HostileInputTest {
         t[t.length - 1] = out2.toString();
         refused(has("u.npy.json"), t);
         assertFalse(Files.exists(out2), "failed run leaves no data file");
+        // Stopped during its accuracy check (checkpoints gone, no report yet): --resume runs only the check.
+        Path out3 = dir.resolve("w.npy");
+        t[t.length - 1] = out3.toString();
+        int cs = Arrays.asList(t).indexOf("--check-samples") + 1;
+        t[cs] = "0";
+        assertEquals(0, CliRun.of(t).exit());
+        byte[] data = Files.readAllBytes(out3);
+        t[cs] = "20";
+        CliRun again = CliRun.of(concat(t, "--resume"));
+        assertEquals(0, again.exit(), again.err());
+        assertTrue(again.err().contains("running its accuracy check again"), again.err());
+        assertTrue(dev.cairn.tables.TableFiles.readJson(dev.cairn.tables.TableFiles.sidecarPath(out3))
+            .containsKey("accuracy"));
+        assertArrayEquals(data, Files.readAllBytes(out3), "data untouched");
         // A survey directory is swapped in whole: no file of an earlier run survives.
         Path s = dir.resolve("sv");
         assertEquals(0, CliRun.of("survey", cube.toString(), "--density", "2000", "--out", s.toString()).exit());

@@ -415,8 +415,8 @@ class ReaderFuzzTest {
         Path obj = write(dir.resolve("box.obj"), BOX_OBJ);
         Path pts = write(dir.resolve("pts.csv"), POINTS);
         String[] sane = {"-1500,1500,-1500,1500,-1500,1500", "700", "4", "1000,1500", "1200:2400:600", "45", "90",
-            "0,0,0", "3", "60", "200"};
-        int n = cases(120);
+            "0,0,0", "64", "60", "200"};
+        int n = cases(200);
         for (int i = 0; i < n; i++) {
             Path out = dir.resolve("g" + (i % 3) + (i % 5 == 0 ? ".csv" : ".npy"));
             List<String> a = new ArrayList<>(List.of("table", obj.toString(), "--density", "2000", "--threads", "1"));
