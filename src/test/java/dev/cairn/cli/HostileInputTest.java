@@ -364,6 +364,22 @@ class HostileInputTest {
         assertTrue(dev.cairn.tables.TableFiles.readJson(dev.cairn.tables.TableFiles.sidecarPath(out3))
             .containsKey("accuracy"));
         assertArrayEquals(data, Files.readAllBytes(out3), "data untouched");
+        // Shards of a body description merge with their accuracy report (the density comes from the regions).
+        TestShapes.write(dir.resolve("outer.obj"), CUBE);
+        TestShapes.write(dir.resolve("core.obj"), CUBE.replace("500", "100"));
+        Path desc = TestShapes.write(dir.resolve("body.json"), "{\"regions\": [{\"name\": \"m\", \"shape\": "
+            + "\"outer.obj\", \"density_kg_m3\": 1500}, {\"name\": \"c\", \"shape\": \"core.obj\", "
+            + "\"density_kg_m3\": 3000}]}");
+        String[] dt = {"table", desc.toString(), "--grid", "box", "--box", "-1500,1500,-1500,1500,-1500,1500",
+            "--spacing", "500", "--check-samples", "0", "--out"};
+        for (int i = 1; i <= 2; i++) {
+            assertEquals(0, CliRun.of(concat(dt, dir.resolve("d" + i + ".npy").toString(), "--shard", i + "/2"))
+                .exit());
+        }
+        CliRun merged = CliRun.of("table-merge", dir.resolve("d1.npy").toString(), dir.resolve("d2.npy").toString(),
+            "--out", dir.resolve("dm.npy").toString(), "--check-samples", "20");
+        assertEquals(0, merged.exit(), merged.err());
+        assertTrue(merged.out().contains("Accuracy"), merged.out());
         // A survey directory is swapped in whole: no file of an earlier run survives.
         Path s = dir.resolve("sv");
         assertEquals(0, CliRun.of("survey", cube.toString(), "--density", "2000", "--out", s.toString()).exit());
