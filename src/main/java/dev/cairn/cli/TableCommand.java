@@ -215,6 +215,9 @@ public final class TableCommand implements Callable<Integer> {
                 + "ones (give --spin-period or spin_period_s in the model sidecar)");
         }
         TableLayout layout = layout(body, grid);
+        // Before anything is locked or computed: the output and its sidecar must not be inputs or special files.
+        dev.cairn.io.RunInputs.requireWritable(out.toAbsolutePath());
+        dev.cairn.io.RunInputs.requireWritable(TableFiles.sidecarPath(out).toAbsolutePath());
         try (OutputLock lock = OutputLock.acquire(out)) {
             AtomicFiles.cleanStale(out, 0);
             AtomicFiles.cleanStale(TableFiles.sidecarPath(out), 0);

@@ -74,6 +74,8 @@ public final class TableMergeCommand implements Callable<Integer> {
             RunInputs.register(s);
             RunInputs.register(TableFiles.sidecarPath(s));
         }
+        RunInputs.requireWritable(out.toAbsolutePath());
+        RunInputs.requireWritable(TableFiles.sidecarPath(out).toAbsolutePath());
         try (OutputLock lock = OutputLock.acquire(out)) {
             AtomicFiles.cleanStale(out, 0);
             AtomicFiles.cleanStale(TableFiles.sidecarPath(out), 0);

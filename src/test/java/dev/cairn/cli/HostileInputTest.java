@@ -400,6 +400,7 @@ class HostileInputTest {
         byte[] model = Files.readAllBytes(cube);
         refused(has("input of this run"), concat(t, cube.toString()));
         assertArrayEquals(model, Files.readAllBytes(cube), "model untouched");
+        assertFalse(Files.exists(dir.resolve("cube.obj.partial")), "refused before any checkpoint is written");
         TestShapes.write(dir.resolve("cube.json"), "{\"density_kg_m3\": 2000}");
         String side = Files.readString(dir.resolve("cube.json"));
         refused(has("input of this run"), concat(t, dir.resolve("cube").toString()));
