@@ -146,6 +146,24 @@ public final class CairnMain implements Runnable {
         }
     }
 
+    /** Parses an option value as a plain ASCII integer in {@code [min, max]}. */
+    static long strictInteger(String text, long min, long max) {
+        String t = text.strip();
+        if (!t.matches("[+-]?[0-9]{1,19}")) {
+            throw new CommandLine.TypeConversionException(Messages.quote(text) + " is not an integer");
+        }
+        try {
+            long v = Long.parseLong(t);
+            if (v < min || v > max) {
+                throw new NumberFormatException();
+            }
+            return v;
+        } catch (NumberFormatException e) {
+            throw new CommandLine.TypeConversionException(Messages.quote(text) + " is out of range (" + min + " to "
+                + max + ")");
+        }
+    }
+
     /** Parses an option value as a finite decimal number. */
     static Double strictDouble(String text) {
         String t = text.strip();
@@ -168,6 +186,13 @@ public final class CairnMain implements Runnable {
         CommandLine.ITypeConverter<Double> strict = CairnMain::strictDouble;
         cl.registerConverter(Double.class, strict);
         cl.registerConverter(Double.TYPE, strict);
+        // Integers: ASCII digits only (Java would also take other scripts' digits, e.g. Arabic-Indic).
+        CommandLine.ITypeConverter<Integer> strictInt = t -> (int) strictInteger(t, Integer.MIN_VALUE, Integer.MAX_VALUE);
+        CommandLine.ITypeConverter<Long> strictLong = t -> strictInteger(t, Long.MIN_VALUE, Long.MAX_VALUE);
+        cl.registerConverter(Integer.class, strictInt);
+        cl.registerConverter(Integer.TYPE, strictInt);
+        cl.registerConverter(Long.class, strictLong);
+        cl.registerConverter(Long.TYPE, strictLong);
         cl.setErr(new PrintWriter(new SafeLineWriter(new PrintWriter(System.err, true)), true));
         cl.setExecutionExceptionHandler((ex, commandLine, parseResult) -> {
             boolean debug = parseResult.originalArgs().contains("--debug");

@@ -199,6 +199,9 @@ public final class TableCommand implements Callable<Integer> {
         int shardIndex = 0;
         int shardCount = 0;
         if (shard != null) {
+            if (!shard.strip().matches("[0-9]{1,9}/[0-9]{1,9}")) {
+                throw new InputException("--shard: expected I/N with 1 <= I <= N, got " + dev.cairn.io.Messages.quote(shard));
+            }
             String[] p = shard.split("/", -1);
             try {
                 shardIndex = Integer.parseInt(p[0].trim());
@@ -404,6 +407,12 @@ public final class TableCommand implements Callable<Integer> {
                     "--grid sphere takes --radii, --lat-step, --lon-step and optionally --centre");
                 if (radii == null || latStep == null || lonStep == null) {
                     throw new InputException("--grid sphere: give --radii, --lat-step and --lon-step");
+                }
+                for (String tok : radii.split("[,:]", -1)) {
+                    if (!Numbers.isDecimal(tok.strip())) {
+                        throw new InputException("--radii: " + dev.cairn.io.Messages.quote(radii) + " is not a list "
+                            + "r1,r2,... or a range from:to:step of decimal numbers (metres)");
+                    }
                 }
                 new SphereGrid(new double[3], SphereGrid.parseRadii(radii), latStep, lonStep);
                 if (centre != null && centre.length != 3) {

@@ -328,6 +328,12 @@ class HostileInputTest {
             + "\"density_kg_m3\": 3000}]}");
         refused(has("same.json", "outer shape"), "inspect", desc.toString());
         refused(has("not a regular file"), "inspect", dir.toString());
+        // Option values: digits of other scripts and Java's number extras are refused too.
+        String[] t = {"table", cube.toString(), "--density", "2000", "--grid", "box", "--box",
+            "-1500,1500,-1500,1500,-1500,1500", "--check-samples", "0", "--out", dir.resolve("o.npy").toString()};
+        refused(has("--nodes", "is not an integer"), concat(t, "--nodes", "\u0661\u0662\u0663"));
+        refused(has("--spacing", "not a decimal number"), concat(t, "--spacing", "0x1p9"));
+        refused(has("--spin-period", "is not a period"), concat(t, "--spacing", "500", "--spin-period", "1fh"));
     }
 
     // ---- class 9: locks, atomic outputs, clean-up
