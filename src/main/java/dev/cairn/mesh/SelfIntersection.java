@@ -11,8 +11,8 @@ import java.util.Arrays;
  * boxes' overlap), so the expected cost is O(F) for a surface of facets of similar size. Two non-coplanar triangles
  * intersect exactly when an edge of one crosses the interior of the other (the end points of their common segment
  * lie on edges); a crossing is counted only when the edge's end points lie strictly on both sides of the other
- * facet's plane and the crossing point strictly inside it, by more than {@link #RELATIVE_TOLERANCE} of the body
- * size, so facets that merely share a vertex or an edge never count (segment–triangle test as in Möller &amp;
+ * facet's plane by more than {@link #RELATIVE_TOLERANCE} of the body size, and the crossing point lies in the
+ * closed facet; edges through a shared vertex are skipped, so facets that merely share a vertex or an edge never count (segment–triangle test as in Möller &amp;
  * Trumbore 1997, J. Graphics Tools 2(1):21–28, here with signed plane distances). Coplanar overlaps are found for
  * the cases a closed surface can have: a facet given twice (in either orientation) and two facets folded flat onto
  * each other across their common edge. All arithmetic is on coordinates relative to the bounding-box centre and
@@ -214,13 +214,12 @@ public final class SelfIntersection {
         double qx = p[3 * s] + w * (p[3 * t] - p[3 * s]) - ax;
         double qy = p[3 * s + 1] + w * (p[3 * t + 1] - p[3 * s + 1]) - ay;
         double qz = p[3 * s + 2] + w * (p[3 * t + 2] - p[3 * s + 2]) - az;
-        return insideStrict(ux, uy, uz, vx, vy, vz, nx, ny, nz, nl, qx, qy, qz);
+        return insideClosed(ux, uy, uz, vx, vy, vz, nx, ny, nz, nl, qx, qy, qz);
     }
 
-    /** Point {@code q} (relative to a) strictly inside triangle (0, u, v) with normal n, by edge distances. */
-    private static boolean insideStrict(double ux, double uy, double uz, double vx, double vy, double vz, double nx,
+    /** Point {@code q} (relative to a) inside or on triangle (0, u, v) with normal n, by signed sub-areas. */
+    private static boolean insideClosed(double ux, double uy, double uz, double vx, double vy, double vz, double nx,
                                         double ny, double nz, double nl, double qx, double qy, double qz) {
-        double tol = RELATIVE_TOLERANCE * nl;
         // Signed areas (times |n|) of the sub-triangles: q on the inner side of each edge.
         double e0 = triple(ux, uy, uz, qx, qy, qz, nx, ny, nz);
         double wx = vx - ux;
@@ -228,7 +227,9 @@ public final class SelfIntersection {
         double wz = vz - uz;
         double e1 = triple(wx, wy, wz, qx - ux, qy - uy, qz - uz, nx, ny, nz);
         double e2 = triple(-vx, -vy, -vz, qx - vx, qy - vy, qz - vz, nx, ny, nz);
-        return e0 > tol * len(ux, uy, uz) && e1 > tol * len(wx, wy, wz) && e2 > tol * len(vx, vy, vz);
+        // The closed triangle: an edge that pierces the plane strictly and meets the facet on its boundary still
+        // cuts the surface (symmetric crossings often pass exactly through a facet edge).
+        return e0 >= 0 && e1 >= 0 && e2 >= 0;
     }
 
     /**
