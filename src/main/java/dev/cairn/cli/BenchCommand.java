@@ -4,6 +4,7 @@ import dev.cairn.gravity.BatchEvaluation;
 import dev.cairn.gravity.HierarchicalField;
 import dev.cairn.gravity.PolyhedronField;
 import dev.cairn.io.BodyModel;
+import dev.cairn.io.InputException;
 import dev.cairn.util.ParallelChunks;
 import dev.cairn.util.ProgressListener;
 import java.io.PrintWriter;
@@ -76,6 +77,14 @@ public final class BenchCommand implements Callable<Integer> {
             throw new picocli.CommandLine.ParameterException(spec.commandLine(),
                 "--lumpy-level: " + lumpyLevel + " is outside 0..8 (8: 1.3 M facets)");
         }
+        // Sizes first, before anything is loaded or allocated (points: 3 doubles in, about 20 doubles out each).
+        TableCommand.requireCount("--points", points, 10_000_000);
+        if (points < 1 || repeat < 1 || repeat > 1000) {
+            throw new InputException("--points and --repeat: need 1 <= points and 1 <= repeat <= 1000, got " + points
+                + " and " + repeat);
+        }
+        MasconOptions.requireMasconCount("--mascons", mascons, true);
+        dev.cairn.io.MemoryBudget.require(200.0 * points, "--points " + points);
         BodyModel body = model.load(null);
         if (!body.hasDensity()) {
             body = dev.cairn.io.ModelLoader.load(model.modelPath(),

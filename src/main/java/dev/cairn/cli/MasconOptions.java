@@ -47,6 +47,20 @@ public final class MasconOptions {
         + "worse far away: the trace does not enter the exterior field; see docs/mascons.md).")
     boolean matchFullInertia;
 
+    /** Most mascons one run generates (generation and evaluation time grow with the count). */
+    static final int MAX_MASCONS = 10_000_000;
+    /** Bytes per mascon while a set is generated and held (positions, masses, lattice and shell scratch). */
+    static final double BYTES_PER_MASCON = 160;
+
+    /** Refuses a mascon count above {@link #MAX_MASCONS} or beyond the heap, before anything is allocated. */
+    static void requireMasconCount(String option, long count, boolean zeroAllowed) {
+        if (count < (zeroAllowed ? 0 : 1) || count > MAX_MASCONS) {
+            throw new InputException(option + ": must be from " + (zeroAllowed ? 0 : 1) + " to " + MAX_MASCONS
+                + ", got " + count);
+        }
+        dev.cairn.io.MemoryBudget.require(BYTES_PER_MASCON * count, option + " " + count);
+    }
+
     /** The mascon set of {@code body} with these options' count and scheme, moments matched with the inertia. */
     static MasconSet generate(BodyModel body, String scheme, int count, int threads) {
         return generate(body, scheme, count, threads, null, null);
@@ -82,6 +96,7 @@ public final class MasconOptions {
         if (count < 1) {
             throw new InputException("--mascons must be at least 1, got " + count);
         }
+        requireMasconCount("--mascons", count, false);
         MasconGenerator.Scheme s;
         try {
             s = MasconGenerator.Scheme.parse(scheme);

@@ -40,13 +40,18 @@ public final class SpinOptions {
             t = t.substring(0, t.length() - 1);
         }
         try {
+            if (!dev.cairn.io.Numbers.isDecimal(t.trim())) {
+                throw new NumberFormatException();
+            }
             double v = Double.parseDouble(t.trim()) * factor;
             if (!(v > 0) || Double.isInfinite(v)) {
-                throw new InputException("--spin-period: must be positive, got '" + text + "'");
+                throw new InputException("--spin-period: must be positive and finite, got "
+                    + dev.cairn.io.Messages.quote(text));
             }
             return v;
         } catch (NumberFormatException e) {
-            throw new InputException("--spin-period: '" + text + "' is not a period (e.g. 4.3h, 90min, 3600s)");
+            throw new InputException("--spin-period: " + dev.cairn.io.Messages.quote(text)
+                + " is not a period (e.g. 4.3h, 90min, 3600s)");
         }
     }
 }

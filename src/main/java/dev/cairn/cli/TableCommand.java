@@ -3,7 +3,11 @@ package dev.cairn.cli;
 import dev.cairn.gravity.FieldCheck;
 import dev.cairn.gravity.FieldModel;
 import dev.cairn.io.BodyModel;
+import dev.cairn.io.AtomicFiles;
 import dev.cairn.io.InputException;
+import dev.cairn.io.MemoryBudget;
+import dev.cairn.io.Numbers;
+import dev.cairn.io.OutputLock;
 import dev.cairn.io.ModelSidecar;
 import dev.cairn.io.PointsCsv;
 import dev.cairn.tables.AccuracyCheck;
@@ -171,6 +175,12 @@ public final class TableCommand implements Callable<Integer> {
         if (threads < 1) {
             throw new InputException("--threads: must be at least 1, got " + threads);
         }
+        if (checkSamples != null) {
+            requireCount("--check-samples", checkSamples, MAX_CHECK_SAMPLES);
+        }
+        if (chunkNodes < 1) {
+            throw new InputException("--chunk-nodes: must be at least 1, got " + chunkNodes);
+        }
         if (gridKind == null && !bench) {
             throw new InputException("--grid: missing (box, sphere or points)");
         }
@@ -187,6 +197,7 @@ public final class TableCommand implements Callable<Integer> {
             return bench(body, field, outw);
         }
         Grid grid = grid(body);
+        requireGridInRange(grid);
         if (grid.nodeCount() > maxNodes && !force) {
             throw new InputException("--grid " + gridKind + ": " + grid.nodeCount() + " nodes is more than the limit of "
                 + maxNodes + "; use --force (or raise --max-nodes) if you mean it");
@@ -201,6 +212,9 @@ public final class TableCommand implements Callable<Integer> {
         int shardIndex = 0;
         int shardCount = 0;
         if (shard != null) {
+            if (!shard.strip().matches("[0-9]{1,9}/[0-9]{1,9}")) {
+                throw new InputException("--shard: expected I/N with 1 <= I <= N, got " + dev.cairn.io.Messages.quote(shard));
+            }
             String[] p = shard.split("/", -1);
             try {
                 shardIndex = Integer.parseInt(p[0].trim());
@@ -217,6 +231,103 @@ public final class TableCommand implements Callable<Integer> {
                 + "ones (give --spin-period or spin_period_s in the model sidecar)");
         }
         TableLayout layout = layout(body, grid);
+        // Before anything is locked or computed: the output and its sidecar must not be inputs or special files.
+        dev.cairn.io.RunInputs.requireWritable(out.toAbsolutePath());
+        dev.cairn.io.RunInputs.requireWritable(TableFiles.sidecarPath(out).toAbsolutePath());
+        try (OutputLock lock = OutputLock.acquire(out)) {
+            AtomicFiles.cleanStale(out, 0);
+            AtomicFiles.cleanStale(TableFiles.sidecarPath(out), 0);
+            double bytes = 8.0 * grid.nodeCount() * layout.columnCount();
+            MemoryBudget.requireDisk(out, 2 * bytes + (1 << 20), "the table (" + grid.nodeCount() + " nodes x "
+                + layout.columnCount() + " columns, with its checkpoints)");
+            if (shard == null && (checkSamples == null || checkSamples > 0) && !(grid instanceof PointGrid)) {
+                // the accuracy check holds the table and its interpolation data (about 4 copies) in memory
+                MemoryBudget.require(4 * bytes, "the accuracy check of a table of " + grid.nodeCount() + " nodes");
+            }
+            Object before = stamp(out);
+            Object beforeSide = stamp(TableFiles.sidecarPath(out));
+            try {
+                return build(body, field, grid, layout, fmt, shardIndex, shardCount, err, outw);
+            } catch (RuntimeException | Error e) {
+                // A failed run leaves nothing under its final names: remove what this run wrote there.
+                if (!java.util.Objects.equals(before, stamp(out))) {
+                    removeQuietly(out);
+                }
+                if (!java.util.Objects.equals(beforeSide, stamp(TableFiles.sidecarPath(out)))) {
+                    removeQuietly(TableFiles.sidecarPath(out));
+                }
+                throw e;
+            }
+        }
+    }
+
+    /**
+     * A table this job finished earlier whose run was stopped during its accuracy check (checkpoints already
+     * removed, data and sidecar written, no accuracy report): with --resume only the check is run again. Null when
+     * there is no such table (then the checkpoints decide).
+     */
+    private TableBuilder.Outcome finishedEarlier(TableLayout layout, Map<String, Object> modelInfo, PrintWriter err) {
+        Path side = TableFiles.sidecarPath(out);
+        if (Files.exists(TableJob.workDir(out)) || !Files.isRegularFile(out) || !Files.isRegularFile(side)) {
+            return null;
+        }
+        Map<String, Object> meta = TableFiles.readJson(side);
+        dev.cairn.io.StrictJson.Fields f = new dev.cairn.io.StrictJson.Fields(meta, side, "");
+        if (meta.containsKey("accuracy") || meta.containsKey("shard") || !f.has("job_fingerprint")
+            || !f.string("job_fingerprint").equals(TableBuilder.fingerprint(layout, modelInfo))
+            || !TableFiles.sha256(out).equals(f.optString("data_sha256"))) {
+            return null;
+        }
+        err.println("cairn: " + out + " is complete; running its accuracy check again");
+        return new TableBuilder.Outcome(true, new TableJob.Result(true, f.optString("created_utc"), 0, 0), meta);
+    }
+
+    /** Largest --check-samples accepted. */
+    static final int MAX_CHECK_SAMPLES = 10_000_000;
+
+    static void requireCount(String option, long value, long max) {
+        if (value < 0 || value > max) {
+            throw new InputException(option + ": must be from 0 to " + max + ", got " + value);
+        }
+    }
+
+    /** Identity of a file's current content (file key and modification time), or null when absent. */
+    static Object stamp(Path p) {
+        try {
+            var a = Files.readAttributes(p, java.nio.file.attribute.BasicFileAttributes.class);
+            return java.util.List.of(String.valueOf(a.fileKey()), a.lastModifiedTime(), a.size());
+        } catch (java.io.IOException e) {
+            return null;
+        }
+    }
+
+    static void removeQuietly(Path p) {
+        try {
+            Files.deleteIfExists(p);
+        } catch (java.io.IOException ignored) {
+            // best effort: the original failure is what the user needs to see
+        }
+    }
+
+    /** Refuses grids whose nodes lie beyond the field-point range (squares would overflow: NaN rows). */
+    private static void requireGridInRange(Grid grid) {
+        double far = 0;
+        if (grid instanceof BoxGrid b) {
+            for (int a = 0; a < 3; a++) {
+                far = Math.max(far, Math.max(Math.abs(b.coordinate(a, 0)), Math.abs(b.coordinate(a, b.counts()[a] - 1))));
+            }
+        } else if (grid instanceof SphereGrid g) {
+            double c = Math.max(Math.abs(g.centre()[0]), Math.max(Math.abs(g.centre()[1]), Math.abs(g.centre()[2])));
+            far = c + g.radii()[g.radii().length - 1];
+        }
+        if (!(far <= Numbers.MAX_POINT_M)) {
+            throw new InputException("--grid: nodes reach " + String.format(Locale.ROOT, "%.3g", far) + " m from the "
+                + "origin, beyond the " + Numbers.MAX_POINT_M + " m this program accepts for field points");
+        }
+    }
+
+    private int build(BodyModel body, FieldModel field, Grid grid, TableLayout layout, String fmt, int shardIndex,
+                      int shardCount, PrintWriter err, PrintWriter outw) {
         Map<String, Object> info = modelInfo(body);
         FieldCheck check = fieldCheck(field, grid, threads);
         if (check.samples() > 0) {
@@ -226,11 +337,14 @@ public final class TableCommand implements Callable<Integer> {
         TableBuilder.Request req = new TableBuilder.Request(field, layout, out, fmt, chunkNodes, resume, shardIndex,
             shardCount, threads, info, VersionProvider.version());
         long t0 = System.nanoTime();
-        TableBuilder.Outcome outcome;
+        TableBuilder.Outcome outcome = resume && shard == null ? finishedEarlier(layout, req.modelInfo(), err) : null;
+        boolean recheck = outcome != null;
         java.util.concurrent.atomic.AtomicInteger chunks = new java.util.concurrent.atomic.AtomicInteger();
-        try (ProgressBar bar = new ProgressBar(shard != null ? "table " + shard : "table")) {
-            outcome = TableBuilder.build(req, bar,
-                () -> stopAfterChunks > 0 && chunks.incrementAndGet() >= stopAfterChunks, now());
+        if (outcome == null) {
+            try (ProgressBar bar = new ProgressBar(shard != null ? "table " + shard : "table")) {
+                outcome = TableBuilder.build(req, bar,
+                    () -> stopAfterChunks > 0 && chunks.incrementAndGet() >= stopAfterChunks, now());
+            }
         }
         double secs = (System.nanoTime() - t0) / 1e9;
         if (!outcome.complete()) {
@@ -239,15 +353,17 @@ public final class TableCommand implements Callable<Integer> {
             err.flush();
             return EXIT_INCOMPLETE;
         }
-        int computedNodes = shard != null ? ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("end_node"))
-            .intValue() - ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("first_node")).intValue()
-            : grid.nodeCount();
-        err.printf(Locale.ROOT, "cairn: wrote %s (%s, %d nodes x %d columns) and %s%s%n", out,
-            shard != null ? "npy shard" : fmt, computedNodes, layout.columnCount(), TableFiles.sidecarPath(out).getFileName(),
-            outcome.job().chunksReused() > 0 ? " (resumed: " + outcome.job().chunksReused() + " chunk(s) reused)" : "");
-        if (outcome.job().chunksReused() == 0) {
-            err.printf(Locale.ROOT, "cairn: %.2f s, %.0f nodes/s with %d thread(s)%n", secs, computedNodes / secs,
-                threads);
+        if (!recheck) {
+            int computedNodes = shard != null ? ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("end_node"))
+                .intValue() - ((Number) ((Map<?, ?>) outcome.metadata().get("shard")).get("first_node")).intValue()
+                : grid.nodeCount();
+            err.printf(Locale.ROOT, "cairn: wrote %s (%s, %d nodes x %d columns) and %s%s%n", out,
+                shard != null ? "npy shard" : fmt, computedNodes, layout.columnCount(), TableFiles.sidecarPath(out).getFileName(),
+                outcome.job().chunksReused() > 0 ? " (resumed: " + outcome.job().chunksReused() + " chunk(s) reused)" : "");
+            if (outcome.job().chunksReused() == 0) {
+                err.printf(Locale.ROOT, "cairn: %.2f s, %.0f nodes/s with %d thread(s)%n", secs, computedNodes / secs,
+                    threads);
+            }
         }
         int samples = checkSamples != null ? checkSamples : AccuracyCheck.DEFAULT_RANDOM_POINTS;
         if (shard == null && samples > 0 && !(grid instanceof PointGrid)) {
@@ -342,6 +458,12 @@ public final class TableCommand implements Callable<Integer> {
                 if (radii == null || latStep == null || lonStep == null) {
                     throw new InputException("--grid sphere: give --radii, --lat-step and --lon-step");
                 }
+                for (String tok : radii.split("[,:]", -1)) {
+                    if (!Numbers.isDecimal(tok.strip())) {
+                        throw new InputException("--radii: " + dev.cairn.io.Messages.quote(radii) + " is not a list "
+                            + "r1,r2,... or a range from:to:step of decimal numbers (metres)");
+                    }
+                }
                 new SphereGrid(new double[3], SphereGrid.parseRadii(radii), latStep, lonStep);
                 if (centre != null && centre.length != 3) {
                     throw new InputException("--centre: expected X,Y,Z, got " + centre.length + " number(s)");
@@ -427,6 +549,11 @@ public final class TableCommand implements Callable<Integer> {
         m.put("sha256", TableFiles.sha256(body.source()));
         Path side = ModelSidecar.pathFor(body.source());
         m.put("sidecar_sha256", body.sidecar() != null && Files.isRegularFile(side) ? TableFiles.sha256(side) : null);
+        Map<String, Object> files = new LinkedHashMap<>();
+        for (Path f : body.files()) {
+            files.put(f.toAbsolutePath().normalize().toString(), TableFiles.sha256(f));
+        }
+        m.put("files_sha256", files);
         m.put("length_unit_of_file", body.lengthUnit());
         m.put("density_kg_m3", body.density());
         m.put("gm_m3_s2", body.gm());

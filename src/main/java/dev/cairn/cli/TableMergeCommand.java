@@ -1,7 +1,11 @@
 package dev.cairn.cli;
 
 import dev.cairn.io.BodyModel;
+import dev.cairn.io.AtomicFiles;
 import dev.cairn.io.InputException;
+import dev.cairn.io.OutputLock;
+import dev.cairn.io.RunInputs;
+import dev.cairn.io.StrictJson;
 import dev.cairn.io.ModelLoader;
 import dev.cairn.io.ModelRequest;
 import dev.cairn.tables.AccuracyCheck;
@@ -61,6 +65,37 @@ public final class TableMergeCommand implements Callable<Integer> {
         if (fmt != null && !fmt.equals(TableFiles.NPY) && !fmt.equals(TableFiles.CSV)) {
             throw new InputException("--format: unknown format '" + format + "' (use npy or csv)");
         }
+        TableCommand.requireCount("--check-samples", checkSamples, TableCommand.MAX_CHECK_SAMPLES);
+        if (threads < 1) {
+            throw new InputException("--threads: must be at least 1, got " + threads);
+        }
+        for (Path s : shards) {
+            RunInputs.register(s);
+            RunInputs.register(TableFiles.sidecarPath(s));
+        }
+        RunInputs.requireWritable(out.toAbsolutePath());
+        RunInputs.requireWritable(TableFiles.sidecarPath(out).toAbsolutePath());
+        try (OutputLock lock = OutputLock.acquire(out)) {
+            AtomicFiles.cleanStale(out, 0);
+            AtomicFiles.cleanStale(TableFiles.sidecarPath(out), 0);
+            Object before = TableCommand.stamp(out);
+            Object beforeSide = TableCommand.stamp(TableFiles.sidecarPath(out));
+            try {
+                return mergeLocked(fmt);
+            } catch (RuntimeException | Error e) {
+                // A failed run leaves nothing under its final names.
+                if (!java.util.Objects.equals(before, TableCommand.stamp(out))) {
+                    TableCommand.removeQuietly(out);
+                }
+                if (!java.util.Objects.equals(beforeSide, TableCommand.stamp(TableFiles.sidecarPath(out)))) {
+                    TableCommand.removeQuietly(TableFiles.sidecarPath(out));
+                }
+                throw e;
+            }
+        }
+    }
+
+    private int mergeLocked(String fmt) {
         Map<String, Object> meta = TableBuilder.merge(shards, out, fmt,
             Instant.now().truncatedTo(ChronoUnit.SECONDS).toString());
         PrintWriter err = spec.commandLine().getErr();
@@ -76,22 +111,52 @@ public final class TableMergeCommand implements Callable<Integer> {
         return 0;
     }
 
+    /** Whether every file recorded under {@code files_sha256} is present with the same SHA-256. */
+    private static boolean filesUnchanged(StrictJson.Fields model) {
+        if (!model.has("files_sha256")) {
+            return true; // shards written before files were fingerprinted: the model's own SHA-256 was checked
+        }
+        Map<?, ?> files = (Map<?, ?>) model.object("files_sha256").raw();
+        for (Map.Entry<?, ?> e : files.entrySet()) {
+            Path p;
+            try {
+                p = Path.of(String.valueOf(e.getKey()));
+            } catch (java.nio.file.InvalidPathException ex) {
+                return false;
+            }
+            if (!java.nio.file.Files.isRegularFile(p) || !TableFiles.sha256(p).equals(e.getValue())) {
+                return false;
+            }
+        }
+        return true;
+    }
+
     /** Accuracy report against the model recorded in the sidecar, when that file is present and unchanged. */
     private void check(Map<String, Object> meta, PrintWriter err, PrintWriter o) {
-        Map<?, ?> model = (Map<?, ?>) meta.get("model");
-        Object file = model == null ? null : model.get("file");
-        if (file == null || !java.nio.file.Files.isRegularFile(Path.of(file.toString()))
-            || !TableFiles.sha256(Path.of(file.toString())).equals(model.get("sha256"))) {
-            err.println("cairn: note: no accuracy report: the model file recorded in the shards (" + file
-                + ") is missing here or has changed");
+        Path side = TableFiles.sidecarPath(out);
+        StrictJson.Fields top = new StrictJson.Fields(meta, side, "");
+        StrictJson.Fields model = top.object("model");
+        String file = model.optString("file");
+        Path modelPath = null;
+        try {
+            modelPath = file == null ? null : Path.of(file);
+        } catch (java.nio.file.InvalidPathException e) {
+            modelPath = null;
+        }
+        if (modelPath == null || !java.nio.file.Files.isRegularFile(modelPath)
+            || !TableFiles.sha256(modelPath).equals(model.optString("sha256")) || !filesUnchanged(model)) {
+            err.println("cairn: note: no accuracy report: the model file recorded in the shards ("
+                + dev.cairn.io.Messages.path(file) + ") or one of its files is missing here or has changed");
             return;
         }
-        if ("points".equals(((Map<?, ?>) meta.get("grid")).get("kind"))) {
+        if ("points".equals(top.object("grid").string("kind"))) {
             return;
         }
-        Object density = model.get("density_kg_m3");
-        BodyModel body = ModelLoader.load(Path.of(file.toString()), new ModelRequest(
-            String.valueOf(model.get("length_unit_of_file")), ((Number) density).doubleValue(), null, null, null, null));
+        String unit = model.string("length_unit_of_file");
+        boolean description = dev.cairn.regions.RegionBodyLoader.isDescription(modelPath);
+        Double density = description ? null : model.number("density_kg_m3", ModelLoader.DENSITY_MIN,
+            ModelLoader.DENSITY_MAX);
+        BodyModel body = ModelLoader.load(modelPath, new ModelRequest(unit, density, null, null, null, null));
         AccuracyCheck.BoundReport rep = TableCommand.accuracy(TableFiles.read(out), body.fieldModel(), body.mesh(),
             AccuracyCheck.Spin.fromMetadata(meta), checkSamples, AccuracyCheck.DEFAULT_RANDOM_PER_CELL, seed,
             Math.max(1, threads), err);

@@ -23,11 +23,17 @@ public final class AtomicFiles {
         void write(OutputStream out) throws IOException;
     }
 
-    /** Writes {@code target} atomically with the bytes {@code writer} produces; parent directories are created. */
+    /**
+     * Writes {@code target} atomically with the bytes {@code writer} produces; parent directories are created.
+     *
+     * @throws InputException when {@code target} is an input of this run or exists and is not a regular file
+     *                        ({@link RunInputs#requireWritable})
+     */
     public static void write(Path target, StreamWriter writer) {
         Path abs = target.toAbsolutePath();
         Path dir = abs.getParent();
         Path tmp = null;
+        RunInputs.requireWritable(abs);
         try {
             Files.createDirectories(dir);
             tmp = Files.createTempFile(dir, "." + abs.getFileName() + ".", ".tmp");
@@ -47,7 +53,7 @@ public final class AtomicFiles {
             }
             tmp = null;
         } catch (IOException e) {
-            throw new UncheckedIOException("cannot write " + target + ": " + e.getMessage(), e);
+            throw new UncheckedIOException(Messages.line("cannot write " + target + ": " + e.getMessage()), e);
         } finally {
             if (tmp != null) {
                 try {
@@ -56,6 +62,37 @@ public final class AtomicFiles {
                     // best effort clean-up of our own temporary file
                 }
             }
+        }
+    }
+
+    /**
+     * Removes temporary files that {@link #write} left beside {@code target} when a run was killed, provided they
+     * are older than {@code minAgeMillis} (0 when the caller holds the output's lock, so no other writer runs).
+     */
+    public static void cleanStale(Path target, long minAgeMillis) {
+        Path abs = target.toAbsolutePath();
+        Path dir = abs.getParent();
+        String prefix = "." + abs.getFileName() + ".";
+        if (dir == null || !Files.isDirectory(dir)) {
+            return;
+        }
+        long now = System.currentTimeMillis();
+        try (var s = Files.newDirectoryStream(dir, p -> {
+            String n = p.getFileName().toString();
+            return n.startsWith(prefix) && n.endsWith(".tmp");
+        })) {
+            for (Path p : s) {
+                try {
+                    if (Files.isRegularFile(p, java.nio.file.LinkOption.NOFOLLOW_LINKS)
+                        && now - Files.getLastModifiedTime(p).toMillis() >= minAgeMillis) {
+                        Files.deleteIfExists(p);
+                    }
+                } catch (IOException ignored) {
+                    // best effort: a file that vanished or cannot be removed is left
+                }
+            }
+        } catch (IOException ignored) {
+            // best effort clean-up
         }
     }
 

@@ -63,6 +63,23 @@ public final class BodyModel {
         return regions;
     }
 
+    /**
+     * Every file this body was made of, in a fixed order: the OBJ and its sidecar (when read), or the body
+     * description and each region's OBJ. A table fingerprints all of them, so a changed region file is noticed.
+     */
+    public List<Path> files() {
+        List<Path> l = new java.util.ArrayList<>();
+        l.add(source);
+        if (regions != null) {
+            for (dev.cairn.regions.RegionBody.Region r : regions.regions()) {
+                l.add(r.shape());
+            }
+        } else if (sidecar != null) {
+            l.add(ModelSidecar.pathFor(source));
+        }
+        return List.copyOf(l);
+    }
+
     /** The OBJ file (or the body description file). */
     public Path source() {
         return source;

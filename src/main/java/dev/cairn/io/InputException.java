@@ -9,24 +9,29 @@ package dev.cairn.io;
 public class InputException extends RuntimeException {
     private static final long serialVersionUID = 1L;
 
-    /** @param message the complete one-line message shown to the user */
+    /** @param message the complete message shown to the user (made one safe line by {@link Messages#line}) */
     public InputException(String message) {
-        super(message);
+        super(Messages.line(message, Messages.MAX_LINE - PREFIX));
     }
 
-    /** @param message the complete one-line message; {@code cause} is kept for {@code --debug} */
+    /** @param message the complete message; {@code cause} is kept for {@code --debug} */
     public InputException(String message, Throwable cause) {
-        super(message, cause);
+        super(Messages.line(message, Messages.MAX_LINE - PREFIX), cause);
     }
+
+    /** Length of the command line's {@code "cairn: error: "} prefix. */
+    private static final int PREFIX = "cairn: error: ".length();
 
     /** Message for a problem at {@code file:line}. Line numbers are 1-based; 0 or less omits the line. */
     public static InputException at(String file, long line, String problem) {
-        return new InputException(line > 0 ? file + ":" + line + ": " + problem : file + ": " + problem);
+        String f = Messages.path(file);
+        return new InputException(line > 0 ? f + ":" + line + ": " + problem : f + ": " + problem);
     }
 
     /** As {@link #at(String, long, String)}, keeping {@code cause} for {@code --debug}. */
     public static InputException at(String file, long line, String problem, Throwable cause) {
-        return new InputException(line > 0 ? file + ":" + line + ": " + problem : file + ": " + problem, cause);
+        String f = Messages.path(file);
+        return new InputException(line > 0 ? f + ":" + line + ": " + problem : f + ": " + problem, cause);
     }
 
     /**
@@ -43,6 +48,24 @@ public class InputException extends RuntimeException {
         int nl = msg.indexOf('\n');
         if (nl > 0) {
             msg = msg.substring(0, nl);
+        }
+        if (msg.length() > 160) {
+            msg = msg.substring(0, 160) + "...";
+        }
+        msg = msg.replace(" (but might if coercion using `CoercionConfig` was enabled)", "");
+        if (e instanceof com.fasterxml.jackson.databind.JsonMappingException jm && !jm.getPath().isEmpty()
+            && !msg.startsWith("Unrecognized field")) {
+            StringBuilder key = new StringBuilder();
+            for (com.fasterxml.jackson.databind.JsonMappingException.Reference r : jm.getPath()) {
+                if (r.getFieldName() != null) {
+                    key.append(key.length() > 0 ? "." : "").append(r.getFieldName());
+                } else if (r.getIndex() >= 0) {
+                    key.append('[').append(r.getIndex() + 1).append(']');
+                }
+            }
+            if (key.length() > 0) {
+                msg = "key " + Messages.quote(key.toString()) + ": " + msg;
+            }
         }
         if (msg.startsWith("Unrecognized field")) {
             msg = msg.replaceFirst("\\s*\\(class [^)]*\\).*", "")

@@ -22,6 +22,20 @@ public final class ModelLoader {
     /** Densities outside this range (kg/m^3) draw a warning (Carry 2012, Planet. Space Sci. 73:98–118, widened). */
     public static final double DENSITY_WARN_LOW = 100;
     public static final double DENSITY_WARN_HIGH = 8000;
+    /**
+     * Densities outside this range (kg/m^3) are refused: a millionth of air's density to beyond any ordinary
+     * matter (white-dwarf matter is about 1e9), far outside any body this program models (those draw a warning
+     * outside 100-8000), and small enough that G·M and the inertia stay finite for every accepted body size
+     * (common practice, no source).
+     */
+    public static final double DENSITY_MIN = 1e-6;
+    public static final double DENSITY_MAX = 1e12;
+    /**
+     * Spin periods outside this range (seconds) are refused: 1 s is far below the fastest-spinning small bodies
+     * (minutes), 1e12 s (about 32,000 years) is as good as no spin (common practice, no source).
+     */
+    public static final double SPIN_PERIOD_MIN_S = 1;
+    public static final double SPIN_PERIOD_MAX_S = 1e12;
 
     private ModelLoader() {
     }
@@ -43,15 +57,21 @@ public final class ModelLoader {
      * found beside its OBJ): the body's mesh is then the outer shape and its field the regions' superposition.
      */
     public static BodyModel load(Path obj, ModelRequest req) {
-        if (!Files.isRegularFile(obj)) {
-            throw new InputException(obj + ": no such file");
-        }
+        requireRegularFile(obj, "model");
+        RunInputs.register(obj);
         if (dev.cairn.regions.RegionBodyLoader.isDescription(obj)) {
             return loadDescription(obj, req);
         }
         Path sidecarPath = ModelSidecar.pathFor(obj);
+        if (Files.exists(sidecarPath) && !Files.isRegularFile(sidecarPath)) {
+            throw new InputException(Messages.path(sidecarPath) + ": not a regular file (the model's sidecar must be "
+                + "a JSON file)");
+        }
         ModelSidecar side = Files.isRegularFile(sidecarPath) && !sidecarPath.equals(obj)
             ? ModelSidecar.read(sidecarPath) : null;
+        if (side != null) {
+            RunInputs.register(sidecarPath);
+        }
         String unit = req.lengthUnit() != null ? req.lengthUnit()
             : side != null && side.lengthUnit != null ? side.lengthUnit : "m";
         double scale = metresPer(unit, req.lengthUnit() != null ? "--units" : sidecarPath.toString());
@@ -66,9 +86,26 @@ public final class ModelLoader {
             edges = EdgeTable.of(mesh);
             report = MeshInspector.inspect(mesh, edges);
         }
+        MeshInspector.requireMeasurable(mesh, report, obj.toString());
+        MeshInspector.requireNoSelfIntersection(mesh, report, obj.toString());
         double density = resolveDensity(obj, req, side, sidecarPath, mesh, warnings);
         SpinState spin = resolveSpin(req, side, sidecarPath);
         return new BodyModel(obj, mesh, edges, report, List.copyOf(warnings), unit, density, spin, side);
+    }
+
+    /**
+     * Refuses a missing file or one that is not a regular file (a directory, device or FIFO), naming it.
+     *
+     * @param what e.g. "model", "points file"
+     */
+    public static void requireRegularFile(Path file, String what) {
+        if (!Files.exists(file)) {
+            throw new InputException(Messages.path(file) + ": no such file");
+        }
+        if (!Files.isRegularFile(file)) {
+            throw new InputException(Messages.path(file) + ": not a regular file (a " + what + " must be a file, not a "
+                + "directory, device or pipe)");
+        }
     }
 
     /** A body description: regions' densities, outer shape as the mesh, spin from the description or request. */
@@ -116,8 +153,8 @@ public final class ModelLoader {
             return Double.NaN;
         }
         double value = density != null ? density : gm != null ? gm : mass;
+        String what = density != null ? "density" : gm != null ? "GM" : "mass";
         if (!(value > 0) || !Double.isFinite(value)) {
-            String what = density != null ? "density" : gm != null ? "GM" : "mass";
             throw new InputException(where + ": " + what + " must be a positive number, got " + value);
         }
         double rho;
@@ -131,6 +168,8 @@ public final class ModelLoader {
             }
             rho = gm != null ? gm / (Constants.G * volume) : mass / volume;
         }
+        requireDensityInRange(rho, density != null ? where + ": density "
+            : where + ": " + what + " " + value + " gives a density of ");
         if (rho < DENSITY_WARN_LOW || rho > DENSITY_WARN_HIGH) {
             warnings.add(where + ": density " + String.format(java.util.Locale.ROOT, "%.4g", rho)
                 + " kg/m^3 is outside the usual 100-8000 kg/m^3 of small bodies; check the units");
@@ -138,16 +177,50 @@ public final class ModelLoader {
         return rho;
     }
 
+    /**
+     * Refuses a density outside [{@link #DENSITY_MIN}, {@link #DENSITY_MAX}] kg/m^3.
+     *
+     * @param prefix start of the message, e.g. {@code "--gm 1e308 gives a density of "} or {@code "file: density "}
+     */
+    public static void requireDensityInRange(double rho, String prefix) {
+        if (!(rho >= DENSITY_MIN && rho <= DENSITY_MAX)) {
+            throw new InputException(prefix + String.format(java.util.Locale.ROOT, "%.4g", rho) + " kg/m^3, outside "
+                + "the " + DENSITY_MIN + " to " + DENSITY_MAX + " kg/m^3 this program accepts");
+        }
+    }
+
+    /** Refuses a spin period outside [{@link #SPIN_PERIOD_MIN_S}, {@link #SPIN_PERIOD_MAX_S}] seconds. */
+    public static void requireSpinPeriodInRange(double period, String where) {
+        if (!(period >= SPIN_PERIOD_MIN_S && period <= SPIN_PERIOD_MAX_S)) {
+            throw new InputException(where + ": spin period must be between " + SPIN_PERIOD_MIN_S + " s and "
+                + SPIN_PERIOD_MAX_S + " s, got " + period + " s");
+        }
+    }
+
+    /** Refuses a spin axis that is not three finite numbers of non-zero length. */
+    static void requireAxis(double[] axis, String where) {
+        if (axis.length != 3) {
+            throw new InputException(where + ": spin_axis must have 3 components");
+        }
+        double n = 0;
+        for (double a : axis) {
+            if (!Double.isFinite(a)) {
+                throw new InputException(where + ": spin axis components must be finite numbers, got " + a);
+            }
+            n = Math.max(n, Math.abs(a));
+        }
+        if (!(n > 0)) {
+            throw new InputException(where + ": spin axis must not be the zero vector");
+        }
+    }
+
     private static SpinState resolveSpin(ModelRequest req, ModelSidecar side, Path sidecarPath) {
         Double period = req.spinPeriod() != null ? req.spinPeriod() : side != null ? side.spinPeriodS : null;
         double[] axis = req.spinAxis() != null ? req.spinAxis()
             : side != null && side.spinAxis != null ? side.spinAxis : new double[] {0, 0, 1};
-        if (axis.length != 3) {
-            throw new InputException(sidecarPath + ": spin_axis must have 3 components");
-        }
-        if (period != null && !(period > 0)) {
-            throw new InputException((req.spinPeriod() != null ? "--spin-period" : sidecarPath.toString())
-                + ": spin period must be positive, got " + period);
+        requireAxis(axis, req.spinAxis() != null ? "--spin-axis" : sidecarPath.toString());
+        if (period != null) {
+            requireSpinPeriodInRange(period, req.spinPeriod() != null ? "--spin-period" : sidecarPath.toString());
         }
         try {
             return new SpinState(period == null ? Double.POSITIVE_INFINITY : period, axis);

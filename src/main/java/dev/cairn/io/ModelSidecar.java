@@ -2,11 +2,6 @@ package dev.cairn.io;
 
 import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
 import com.fasterxml.jackson.annotation.JsonProperty;
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.DeserializationFeature;
-import com.fasterxml.jackson.databind.ObjectMapper;
-import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 
 /**
@@ -39,9 +34,6 @@ public final class ModelSidecar {
     @JsonProperty("spin_axis")
     public double[] spinAxis;
 
-    private static final ObjectMapper MAPPER = new ObjectMapper()
-        .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES);
-
     /** The sidecar path for a model: same folder and base name, extension {@code .json}. */
     public static Path pathFor(Path model) {
         String fn = model.getFileName().toString();
@@ -50,14 +42,8 @@ public final class ModelSidecar {
         return model.resolveSibling(base + ".json");
     }
 
-    /** Reads a sidecar; a malformed file gives an {@link InputException} naming the file, line and problem. */
+    /** Reads a sidecar strictly ({@link StrictJson}); a malformed file gives an {@link InputException} naming the file, line and problem. */
     public static ModelSidecar read(Path file) {
-        try {
-            return MAPPER.readValue(Files.readAllBytes(file), ModelSidecar.class);
-        } catch (JsonProcessingException e) {
-            throw InputException.json(file, e, "bad model sidecar", "docs/model-sidecar.md");
-        } catch (IOException e) {
-            throw new InputException(file + ": cannot read: " + e.getMessage(), e);
-        }
+        return StrictJson.read(file, ModelSidecar.class, "bad model sidecar", "docs/model-sidecar.md");
     }
 }

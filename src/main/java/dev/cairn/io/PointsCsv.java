@@ -18,9 +18,8 @@ public final class PointsCsv {
 
     /** Returns the points as {@code 3n} doubles, metres. */
     public static double[] read(Path file) {
-        if (!Files.isRegularFile(file)) {
-            throw new InputException(file + ": no such file");
-        }
+        ModelLoader.requireRegularFile(file, "points file");
+        RunInputs.register(file);
         double[] xyz = new double[3 * 256];
         int n = 0;
         boolean first = true;
@@ -29,6 +28,9 @@ public final class PointsCsv {
             String line;
             while ((line = r.readLine()) != null) {
                 lineNo++;
+                if (lineNo == 1 && line.startsWith("\uFEFF")) {
+                    line = line.substring(1); // UTF-8 byte-order mark
+                }
                 String t = line.strip();
                 if (t.isEmpty() || t.startsWith("#")) {
                     continue;
@@ -49,16 +51,16 @@ public final class PointsCsv {
                 }
                 for (int k = 0; k < 3; k++) {
                     String p = parts[k].strip();
-                    try {
-                        double v = Double.parseDouble(p);
-                        if (!Double.isFinite(v)) {
-                            throw new NumberFormatException();
-                        }
-                        xyz[3 * n + k] = v;
-                    } catch (NumberFormatException e) {
-                        throw InputException.at(file.toString(), lineNo, "row " + lineNo + ": '" + p
-                            + "' is not a finite number");
+                    double v = Numbers.isDecimal(p) ? Double.parseDouble(p) : Double.NaN;
+                    if (!Double.isFinite(v)) {
+                        throw InputException.at(file.toString(), lineNo, "row " + lineNo + ": " + Messages.quote(p)
+                            + " is not a finite number");
                     }
+                    if (Math.abs(v) > Numbers.MAX_POINT_M) {
+                        throw InputException.at(file.toString(), lineNo, "row " + lineNo + ": " + Messages.quote(p)
+                            + " m is beyond the " + Numbers.MAX_POINT_M + " m this program accepts for field points");
+                    }
+                    xyz[3 * n + k] = v;
                 }
                 n++;
             }
@@ -66,7 +68,7 @@ public final class PointsCsv {
             throw new InputException(file + ": cannot read: " + e.getMessage(), e);
         }
         if (n == 0) {
-            throw new InputException(file + ": no points found");
+            throw new InputException(Messages.path(file) + ": no points found");
         }
         return Arrays.copyOf(xyz, 3 * n);
     }

@@ -36,6 +36,11 @@ public final class MassPropertiesCalculator {
         double ox = 0.5 * (bbox[0] + bbox[3]);
         double oy = 0.5 * (bbox[1] + bbox[4]);
         double oz = 0.5 * (bbox[2] + bbox[5]);
+        // Scale-free sums: coordinates relative to the box centre in units of the largest half-side L, so that no
+        // power of the body size (up to L^5 for the second moments) overflows or underflows inside the loop.
+        double half = 0.5 * Math.max(bbox[3] - bbox[0], Math.max(bbox[4] - bbox[1], bbox[5] - bbox[2]));
+        double len = half > 0 && Double.isFinite(half) ? half : 1.0;
+        double inv = 1.0 / len;
         double vol = 0;
         double area = 0;
         double mx = 0;
@@ -51,15 +56,15 @@ public final class MassPropertiesCalculator {
             int ia = 3 * tri[f];
             int ib = 3 * tri[f + 1];
             int ic = 3 * tri[f + 2];
-            double ax = xyz[ia] - ox;
-            double ay = xyz[ia + 1] - oy;
-            double az = xyz[ia + 2] - oz;
-            double bx = xyz[ib] - ox;
-            double by = xyz[ib + 1] - oy;
-            double bz = xyz[ib + 2] - oz;
-            double cx = xyz[ic] - ox;
-            double cy = xyz[ic + 1] - oy;
-            double cz = xyz[ic + 2] - oz;
+            double ax = (xyz[ia] - ox) * inv;
+            double ay = (xyz[ia + 1] - oy) * inv;
+            double az = (xyz[ia + 2] - oz) * inv;
+            double bx = (xyz[ib] - ox) * inv;
+            double by = (xyz[ib + 1] - oy) * inv;
+            double bz = (xyz[ib + 2] - oz) * inv;
+            double cx = (xyz[ic] - ox) * inv;
+            double cy = (xyz[ic + 1] - oy) * inv;
+            double cz = (xyz[ic + 2] - oz) * inv;
             double v = (ax * (by * cz - bz * cy) + ay * (bz * cx - bx * cz) + az * (bx * cy - by * cx)) / 6.0;
             double nx = (by - ay) * (cz - az) - (bz - az) * (cy - ay);
             double ny = (bz - az) * (cx - ax) - (bx - ax) * (cz - az);
@@ -83,7 +88,7 @@ public final class MassPropertiesCalculator {
         double gx = mx / vol;
         double gy = my / vol;
         double gz = mz / vol;
-        // Second moment about the centre of mass (parallel-axis theorem), then I = ρ(tr P·1 − P).
+        // Second moment about the centre of mass (parallel-axis theorem), then I = ρ(tr P·1 − P), in units of L^5.
         double cxx = pxx - vol * gx * gx;
         double cyy = pyy - vol * gy * gy;
         double czz = pzz - vol * gz * gz;
@@ -91,11 +96,15 @@ public final class MassPropertiesCalculator {
         double cxz = pxz - vol * gx * gz;
         double cyz = pyz - vol * gy * gz;
         double tr = cxx + cyy + czz;
+        double l2 = len * len;
+        double rl5 = density * l2 * l2 * len;
         double[] inertia = {
-            density * (tr - cxx), -density * cxy, -density * cxz,
-            -density * cxy, density * (tr - cyy), -density * cyz,
-            -density * cxz, -density * cyz, density * (tr - czz)};
-        double[] com = {gx + ox, gy + oy, gz + oz};
+            rl5 * (tr - cxx), -rl5 * cxy, -rl5 * cxz,
+            -rl5 * cxy, rl5 * (tr - cyy), -rl5 * cyz,
+            -rl5 * cxz, -rl5 * cyz, rl5 * (tr - czz)};
+        double[] com = {gx * len + ox, gy * len + oy, gz * len + oz};
+        vol *= l2 * len;
+        area *= l2;
         double[] moments = new double[3];
         double[] axes = new double[9];
         principal(inertia, moments, axes);
@@ -119,7 +128,26 @@ public final class MassPropertiesCalculator {
      * @param axes    receives the unit eigenvectors as rows (written)
      */
     public static void principal(double[] sym, double[] moments, double[] axes) {
-        DMatrixRMaj m = new DMatrixRMaj(3, 3, true, sym);
+        double scale = 0;
+        for (double v : sym) {
+            if (!Double.isFinite(v)) {
+                throw new ArithmeticException("inertia tensor is not finite");
+            }
+            scale = Math.max(scale, Math.abs(v));
+        }
+        if (scale == 0) { // exact: a zero tensor has no principal axes; report the model frame
+            java.util.Arrays.fill(moments, 0);
+            java.util.Arrays.fill(axes, 0);
+            axes[0] = 1;
+            axes[4] = 1;
+            axes[8] = 1;
+            return;
+        }
+        double[] scaled = new double[9];
+        for (int i = 0; i < 9; i++) {
+            scaled[i] = sym[i] / scale; // eigenvectors are scale-free; eigenvalues scaled back below
+        }
+        DMatrixRMaj m = new DMatrixRMaj(3, 3, true, scaled);
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(3, true, true);
         if (!eig.decompose(m)) {
             throw new ArithmeticException("eigen-decomposition of the inertia tensor failed");
@@ -127,7 +155,7 @@ public final class MassPropertiesCalculator {
         Integer[] order = {0, 1, 2};
         double[] val = new double[3];
         for (int k = 0; k < 3; k++) {
-            val[k] = eig.getEigenvalue(k).getReal();
+            val[k] = eig.getEigenvalue(k).getReal() * scale;
         }
         java.util.Arrays.sort(order, (i, j) -> Double.compare(val[i], val[j]));
         for (int k = 0; k < 3; k++) {

@@ -18,6 +18,15 @@ public final class MeshInspector {
     /** Vertices closer than this fraction of the diagonal count as duplicates. */
     public static final double DUPLICATE_DISTANCE = 1e-9;
     private static final int EXAMPLES = 5;
+    /**
+     * Largest vertex coordinate accepted, metres (1e12 m, about 7 au): far beyond any small body, and small enough
+     * that squares and fifth powers of body sizes stay finite in double precision (common practice, no source).
+     */
+    public static final double MAX_COORDINATE_M = 1e12;
+    /** Smallest body size (largest bounding-box side) accepted, metres: 1 mm (common practice, no source). */
+    public static final double MIN_SIZE_M = 1e-3;
+    /** A closed surface enclosing less than this fraction of its bounding-box size cubed encloses no volume. */
+    public static final double ZERO_VOLUME = 1e-12;
 
     private MeshInspector() {
     }
@@ -162,6 +171,55 @@ public final class MeshInspector {
             return mesh.flipped();
         }
         return mesh;
+    }
+
+    /**
+     * Refuses a mesh whose numbers cannot carry a gravity model: coordinates beyond {@link #MAX_COORDINATE_M}, a body
+     * smaller than {@link #MIN_SIZE_M}, or a surface that encloses no volume (a single facet, a doubled or folded-flat
+     * surface). Called on every loaded model, before any mass property is computed.
+     *
+     * @throws InputException naming {@code name} and the problem
+     */
+    public static void requireMeasurable(TriangleMesh mesh, MeshReport r, String name) {
+        double[] bb = r.boundingBox();
+        double extent = 0;
+        for (int k = 0; k < 3; k++) {
+            double m = Math.max(Math.abs(bb[k]), Math.abs(bb[k + 3]));
+            if (!(m <= MAX_COORDINATE_M)) {
+                throw new InputException(name + ": coordinates reach " + String.format(java.util.Locale.ROOT,
+                    "%.3g", m) + " m, beyond the " + MAX_COORDINATE_M + " m this program accepts (check the units)");
+            }
+            extent = Math.max(extent, bb[k + 3] - bb[k]);
+        }
+        if (!(extent >= MIN_SIZE_M)) {
+            throw new InputException(name + ": the body is " + String.format(java.util.Locale.ROOT, "%.3g", extent)
+                + " m across, below the smallest size accepted (" + MIN_SIZE_M + " m; check the units)");
+        }
+        double v = r.signedVolume();
+        if (!(Math.abs(v) > ZERO_VOLUME * extent * extent * extent)) {
+            String why = r.facets() < 4 ? "it has only " + r.facets() + " facet(s)"
+                : !r.closed() ? "the surface is open (" + r.boundaryEdges() + " boundary edge(s))"
+                : "its facets cancel (a doubled or folded-flat surface)";
+            throw new InputException(name + ": the surface encloses no volume (" + String.format(java.util.Locale.ROOT,
+                "%.3g", v) + " m^3): " + why);
+        }
+    }
+
+    /**
+     * Refuses a closed surface that cuts through itself ({@link SelfIntersection}): a folded or tangled surface has
+     * no inside, so neither mass properties nor the polyhedron field mean anything on it.
+     *
+     * @throws InputException naming {@code name} and two crossing facets (1-based)
+     */
+    public static void requireNoSelfIntersection(TriangleMesh mesh, MeshReport r, String name) {
+        if (!r.closed()) {
+            return; // an open surface is refused for gravity with its own message
+        }
+        int[] pair = SelfIntersection.find(mesh);
+        if (pair != null) {
+            throw new InputException(name + ": the surface intersects itself: facets " + (pair[0] + 1) + " and "
+                + (pair[1] + 1) + " (1-based) cross or overlap; the body must be a simple closed surface");
+        }
     }
 
     private static String pairs(List<int[]> list) {

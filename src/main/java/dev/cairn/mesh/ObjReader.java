@@ -1,6 +1,7 @@
 package dev.cairn.mesh;
 
 import dev.cairn.io.InputException;
+import dev.cairn.io.Messages;
 import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.InputStream;
@@ -44,8 +45,11 @@ public final class ObjReader {
      * @param metresPerUnit length of one model unit in metres (1 for m, 1000 for km)
      */
     public static Result read(Path file, double metresPerUnit) {
-        if (!Files.isRegularFile(file)) {
+        if (!Files.exists(file)) {
             throw new InputException(file + ": no such file");
+        }
+        if (!Files.isRegularFile(file)) {
+            throw new InputException(file + ": not a regular file (a directory, device or pipe cannot be a model)");
         }
         try (InputStream in = Files.newInputStream(file)) {
             return read(in, file.toString(), metresPerUnit);
@@ -67,10 +71,16 @@ public final class ObjReader {
         List<String> warnings = new ArrayList<>();
         int nonPlanar = 0;
         int firstNonPlanarLine = 0;
+        int unknown = 0;
+        long firstUnknownLine = 0;
+        String firstUnknown = null;
         long lineNo = 0;
         String line;
         while ((line = reader.readLine()) != null) {
             lineNo++;
+            if (lineNo == 1 && line.startsWith("\uFEFF")) {
+                line = line.substring(1); // UTF-8 byte-order mark
+            }
             int len = line.length();
             int p = skipSpace(line, 0);
             if (p >= len) {
@@ -82,6 +92,17 @@ public final class ObjReader {
             }
             int end = tokenEnd(line, p);
             if (end - p != 1 || (c0 != 'v' && c0 != 'f')) {
+                String kw = line.substring(p, end);
+                if (!IGNORED.contains(kw)) {
+                    if (c0 == 'v' || c0 == 'f' || c0 == 'V' || c0 == 'F') {
+                        throw InputException.at(name, lineNo, "unknown statement " + Messages.quote(kw)
+                            + " (vertices are 'v x y z', facets 'f i j k', lower case, separated by spaces)");
+                    }
+                    if (unknown++ == 0) {
+                        firstUnknownLine = lineNo;
+                        firstUnknown = kw;
+                    }
+                }
                 continue; // vt, vn, o, g, s, usemtl, mtllib, l, p, ... ignored
             }
             if (c0 == 'v') {
@@ -95,8 +116,12 @@ public final class ObjReader {
                         throw InputException.at(name, lineNo, "vertex has " + k + " coordinates, expected 3");
                     }
                     int e = tokenEnd(line, q);
-                    double v = parseCoordinate(line, q, e, name, lineNo);
-                    xyz[3 * nv + k] = v * metresPerUnit;
+                    double v = parseCoordinate(line, q, e, name, lineNo) * metresPerUnit;
+                    if (!(Math.abs(v) <= MeshInspector.MAX_COORDINATE_M)) {
+                        throw InputException.at(name, lineNo, "coordinate " + Messages.quote(line.substring(q, e))
+                            + " is beyond " + MeshInspector.MAX_COORDINATE_M + " m (check the units)");
+                    }
+                    xyz[3 * nv + k] = v;
                     q = e;
                 }
                 nv++;
@@ -140,6 +165,10 @@ public final class ObjReader {
         if (nt == 0) {
             throw new InputException(name + ": empty model: no facets ('f' lines) found");
         }
+        if (unknown > 0) {
+            warnings.add(name + ":" + firstUnknownLine + ": " + unknown + " line(s) with unknown statements ignored "
+                + "(first: " + Messages.quote(firstUnknown) + ")");
+        }
         if (nonPlanar > 0) {
             warnings.add(name + ":" + firstNonPlanarLine + ": " + nonPlanar
                 + " polygon(s) are not planar (out of plane by more than " + NON_PLANAR_TOLERANCE
@@ -173,23 +202,33 @@ public final class ObjReader {
     }
 
     private static double parseCoordinate(String s, int from, int to, String name, long lineNo) {
-        String tok = s.substring(from, to);
-        try {
-            double v = Double.parseDouble(tok);
-            if (!Double.isFinite(v)) {
-                throw InputException.at(name, lineNo, "coordinate '" + tok + "' is not a finite number");
-            }
-            return v;
-        } catch (NumberFormatException e) {
-            throw InputException.at(name, lineNo, "coordinate '" + tok + "' is not a number");
+        if (!dev.cairn.io.Numbers.isDecimal(s, from, to)) {
+            throw InputException.at(name, lineNo, "coordinate " + Messages.quote(s.substring(from, to))
+                + " is not a number");
         }
+        String tok = s.substring(from, to);
+        double v = Double.parseDouble(tok);
+        if (!Double.isFinite(v)) {
+            throw InputException.at(name, lineNo, "coordinate " + Messages.quote(tok) + " is not a finite number");
+        }
+        return v;
     }
+
+    /** Statements of the OBJ format that carry nothing the gravity model needs. */
+    private static final java.util.Set<String> IGNORED = java.util.Set.of("vt", "vn", "vp", "o", "g", "s", "usemtl",
+        "mtllib", "l", "p", "cstype", "deg", "bmat", "step", "curv", "curv2", "surf", "parm", "trim", "hole",
+        "scrv", "sp", "end", "con", "mg", "bevel", "c_interp", "d_interp", "lod", "shadow_obj", "trace_obj",
+        "ctech", "stech", "maplib", "usemap");
 
     /** Parses the vertex part of {@code i}, {@code i/t}, {@code i//n}, {@code i/t/n}; returns a 0-based index. */
     private static int parseIndex(String s, int from, int to, int nv, String name, long lineNo) {
         int slash = from;
         while (slash < to && s.charAt(slash) != '/') {
             slash++;
+        }
+        if (slash < to && !validRefTail(s, slash, to)) {
+            throw InputException.at(name, lineNo, "facet vertex reference " + Messages.quote(s.substring(from, to))
+                + " is not of the form i, i/t, i//n or i/t/n with integer indices");
         }
         long v = 0;
         boolean neg = false;
@@ -199,13 +238,14 @@ public final class ObjReader {
             p++;
         }
         if (p == slash) {
-            throw InputException.at(name, lineNo, "facet vertex reference '" + s.substring(from, to) + "' is not an integer");
+            throw InputException.at(name, lineNo, "facet vertex reference " + Messages.quote(s.substring(from, to))
+                + " is not an integer");
         }
         for (; p < slash; p++) {
             char c = s.charAt(p);
             if (c < '0' || c > '9' || v > Integer.MAX_VALUE) {
                 throw InputException.at(name, lineNo,
-                    "facet vertex reference '" + s.substring(from, to) + "' is not an integer");
+                    "facet vertex reference " + Messages.quote(s.substring(from, to)) + " is not an integer");
             }
             v = v * 10 + (c - '0');
         }
@@ -218,6 +258,35 @@ public final class ObjReader {
                 + nv + " vertices defined so far)");
         }
         return (int) idx;
+    }
+
+    /** The part {@code /t}, {@code //n} or {@code /t/n} after the vertex index: optional signed integers. */
+    private static boolean validRefTail(String s, int slash, int to) {
+        int parts = 0;
+        int p = slash;
+        boolean emptyTexture = false;
+        while (p < to) {
+            if (s.charAt(p) != '/' || ++parts > 2) {
+                return false;
+            }
+            p++;
+            int q = p;
+            if (q < to && (s.charAt(q) == '-' || s.charAt(q) == '+')) {
+                q++;
+            }
+            int d = q;
+            while (q < to && s.charAt(q) >= '0' && s.charAt(q) <= '9') {
+                q++;
+            }
+            if (q == d) {
+                if (q != p || parts == 2) {
+                    return false; // a lone sign, or an empty normal index
+                }
+                emptyTexture = true;
+            }
+            p = q;
+        }
+        return !(emptyTexture && parts == 1);
     }
 
     /** Newell normal of the polygon and the largest distance of a vertex from its mean plane, relative to size. */

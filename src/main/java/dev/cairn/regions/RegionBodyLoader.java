@@ -1,10 +1,10 @@
 package dev.cairn.regions;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import dev.cairn.gravity.Constants;
 import dev.cairn.io.InputException;
+import dev.cairn.io.Messages;
 import dev.cairn.io.ModelLoader;
 import dev.cairn.mascon.SurfaceQuery;
 import dev.cairn.mass.MassPropertiesCalculator;
@@ -38,9 +38,15 @@ import java.util.Set;
 public final class RegionBodyLoader {
     /** Vertex-to-surface distance, relative to the outer shape's bounding-box diagonal, that counts as "on it". */
     public static final double ON_SURFACE_TOLERANCE = 1e-9;
+    /** Most regions in one description (the nesting check is quadratic in the count; common practice, no source). */
+    public static final int MAX_REGIONS = 64;
 
-    private static final ObjectMapper MAPPER = new ObjectMapper()
-        .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES);
+    private static final ObjectMapper MAPPER = dev.cairn.io.StrictJson.MAPPER;
+    /**
+     * System property that lets region shapes lie outside the description's own folder tree (off by default, so
+     * a description cannot make the program read arbitrary files).
+     */
+    public static final String ALLOW_OUTSIDE_PROPERTY = "cairn.regions.allowOutside";
 
     private RegionBodyLoader() {
     }
@@ -52,18 +58,20 @@ public final class RegionBodyLoader {
 
     /** Parses the JSON; syntax errors and unknown keys name the file and line. */
     public static BodyDescription read(Path file) {
-        if (!Files.isRegularFile(file)) {
-            throw new InputException(file + ": no such file");
-        }
+        ModelLoader.requireRegularFile(file, "body description");
         BodyDescription d;
         try {
-            byte[] bytes = Files.readAllBytes(file);
+            byte[] bytes = dev.cairn.io.StrictJson.bytes(file);
             com.fasterxml.jackson.databind.JsonNode tree = MAPPER.readTree(bytes);
             if (tree == null || !tree.isObject() || !tree.has("regions")) {
                 throw new InputException(file + ": not a body description: no \"regions\" list (a model's own "
                     + "sidecar JSON is read automatically beside its OBJ: pass the OBJ instead)");
             }
             d = MAPPER.readValue(bytes, BodyDescription.class);
+            if (d != null && d.regions != null && d.regions.size() > MAX_REGIONS) {
+                throw new InputException(file + ": " + d.regions.size() + " regions, more than the " + MAX_REGIONS
+                    + " accepted");
+            }
         } catch (JsonProcessingException e) {
             throw InputException.json(file, e, "bad body description", "docs/mascons.md");
         } catch (IOException e) {
@@ -88,7 +96,9 @@ public final class RegionBodyLoader {
         String where = file.toString();
         String unit = unitOverride != null ? unitOverride : d.lengthUnit != null ? d.lengthUnit : "m";
         double scale = ModelLoader.metresPer(unit, unitOverride != null ? "--units" : where);
-        Path dir = file.toAbsolutePath().getParent();
+        Path dir = file.toAbsolutePath().normalize().getParent();
+        Path realDir = realPath(dir);
+        boolean anywhere = Boolean.getBoolean(ALLOW_OUTSIDE_PROPERTY);
         int n = d.regions.size();
         Set<String> names = new HashSet<>();
         TriangleMesh[] meshes = new TriangleMesh[n];
@@ -103,24 +113,39 @@ public final class RegionBodyLoader {
             }
             rn[i] = r.name != null ? r.name : "region " + (i + 1);
             if (!names.add(rn[i])) {
-                throw new InputException(where + ": two regions are named '" + rn[i] + "'");
+                throw new InputException(where + ": two regions are named " + Messages.quote(rn[i]));
             }
-            if (r.shape == null) {
-                throw new InputException(where + ": region '" + rn[i] + "' has no \"shape\" (path of its OBJ)");
+            String label = "region " + Messages.quote(rn[i]);
+            if (r.shape == null || r.shape.isBlank()) {
+                throw new InputException(where + ": " + label + " has no \"shape\" (path of its OBJ)");
             }
             if (r.density != null && (!(r.density >= 0) || !Double.isFinite(r.density))) {
-                throw new InputException(where + ": region '" + rn[i] + "': density_kg_m3 must be zero (a void) or "
+                throw new InputException(where + ": " + label + ": density_kg_m3 must be zero (a void) or "
                     + "positive, got " + r.density);
             }
+            if (r.density != null && r.density > 0) {
+                ModelLoader.requireDensityInRange(r.density, where + ": " + label + ": density ");
+            }
             if (r.densityGradient != null && !Double.isFinite(r.densityGradient)) {
-                throw new InputException(where + ": region '" + rn[i] + "': density_gradient_kg_m3_per_m must be "
+                throw new InputException(where + ": " + label + ": density_gradient_kg_m3_per_m must be "
                     + "a finite number");
             }
-            paths[i] = dir.resolve(r.shape).normalize();
-            if (!Files.isRegularFile(paths[i])) {
-                throw new InputException(where + ": region '" + rn[i] + "': shape file " + r.shape
-                    + " not found (looked for " + paths[i] + ")");
+            try {
+                paths[i] = dir.resolve(r.shape).normalize();
+            } catch (java.nio.file.InvalidPathException e) {
+                throw new InputException(where + ": " + label + ": shape " + Messages.quote(r.shape)
+                    + " is not a valid path");
             }
+            if (!anywhere && !realPath(paths[i]).startsWith(realDir)) {
+                throw new InputException(where + ": " + label + ": shape " + Messages.quote(r.shape) + " lies outside "
+                    + "the description's folder; region files must be in its folder tree (or set -D"
+                    + ALLOW_OUTSIDE_PROPERTY + "=true)");
+            }
+            if (!Files.isRegularFile(paths[i])) {
+                throw new InputException(where + ": " + label + ": shape file " + Messages.quote(r.shape)
+                    + (Files.exists(paths[i]) ? " is not a regular file" : " not found"));
+            }
+            dev.cairn.io.RunInputs.register(paths[i]);
             ObjReader.Result read = ObjReader.read(paths[i], scale);
             warnings.addAll(read.warnings());
             TriangleMesh mesh = read.mesh();
@@ -130,11 +155,15 @@ public final class RegionBodyLoader {
             if (fixed != mesh) {
                 mesh = fixed;
                 et = EdgeTable.of(mesh);
+                rep = MeshInspector.inspect(mesh, et);
             }
+            MeshInspector.requireMeasurable(mesh, rep, paths[i].toString());
+            MeshInspector.requireNoSelfIntersection(mesh, rep, paths[i].toString());
             meshes[i] = mesh;
             edges[i] = et;
             volumes[i] = MassPropertiesCalculator.unitDensity(mesh).volume();
         }
+        dev.cairn.io.RunInputs.register(file);
         int[] parent = nesting(where, rn, meshes, volumes);
         int[] depth = new int[n];
         for (int i = 1; i < n; i++) {
@@ -163,6 +192,14 @@ public final class RegionBodyLoader {
                 throw new InputException(where + ": region '" + rn[i] + "' has no density_kg_m3");
             }
             rho[i] = r.density == null ? 0 : r.density;
+            // The density across the region must stay in range: |gradient| times the outer size is its spread.
+            double[] ob = meshes[0].boundingBox();
+            double size = Math.max(ob[3] - ob[0], Math.max(ob[4] - ob[1], ob[5] - ob[2]));
+            if (Math.abs(grad[i]) * size > ModelLoader.DENSITY_MAX) {
+                throw new InputException(where + ": region " + Messages.quote(rn[i]) + ": density gradient " + grad[i]
+                    + " kg/m^3 per m changes the density by more than " + ModelLoader.DENSITY_MAX
+                    + " kg/m^3 across the body");
+            }
         }
         Double gm = gmOverride != null ? gmOverride : d.measuredGm;
         if (gm != null && (!(gm > 0) || !Double.isFinite(gm))) {
@@ -194,6 +231,8 @@ public final class RegionBodyLoader {
                     + "' gives GM " + gm + " m^3/s^2 (the other regions alone already give "
                     + String.format(Locale.ROOT, "%.6g", Constants.G * others) + " m^3/s^2)");
             }
+            ModelLoader.requireDensityInRange(value, where + ": solved density of region " + Messages.quote(rn[solve])
+                + " is ");
             rho[solve] = value;
             warnings.add(where + ": density of region '" + rn[solve] + "' solved from GM " + gm + " m^3/s^2: "
                 + String.format(Locale.ROOT, "%.6g", value) + " kg/m^3");
@@ -256,6 +295,11 @@ public final class RegionBodyLoader {
             }
         }
         for (int j = 1; j < n; j++) {
+            if (out[j][0] == 0 && in[j][0] == 0) {
+                throw new InputException(where + ": region " + Messages.quote(rn[j]) + " is the outer shape "
+                    + Messages.quote(rn[0]) + " again (every vertex of each lies on the other); a region must lie "
+                    + "inside the outer shape");
+            }
             if (out[0][j] > 0) {
                 throw new InputException(where + ": region '" + rn[j] + "' extends outside the outer shape '" + rn[0]
                     + "': " + out[0][j] + " of " + meshes[j].vertexCount() + " vertices lie outside it");
@@ -297,6 +341,14 @@ public final class RegionBodyLoader {
             }
         }
         return parent;
+    }
+
+    private static Path realPath(Path p) {
+        try {
+            return p.toRealPath();
+        } catch (IOException | SecurityException e) {
+            return p.toAbsolutePath().normalize();
+        }
     }
 
     private static double sq(double x) {

@@ -252,7 +252,12 @@ public final class SurveyMaps {
         g.setFont(g.getFont().deriveFont(Font.PLAIN, 11f));
         fm = g.getFontMetrics();
         double step = niceCeil(span / 6);
-        for (double val = Math.ceil(lo / step) * step; val <= hi + 1e-9 * span; val += step) {
+        // Ticks by an integer count, never by floating-point progress (a step below one ulp of lo would never end).
+        double k0 = Math.ceil(lo / step);
+        double k1 = Math.floor((hi + 1e-9 * span) / step);
+        long nTicks = k1 >= k0 && k1 - k0 < MAX_TICKS ? (long) (k1 - k0) + 1 : 0;
+        for (long i = 0; i < nTicks; i++) {
+            double val = (k0 + i) * step;
             double tick = Math.abs(val) < 1e-9 * step ? 0 : val; // print -0 as 0
             int y = TOP + GRID_H - (int) Math.round(GRID_H * (tick - lo) / span);
             g.drawLine(bx + bw, y, bx + bw + 4, y);
@@ -417,6 +422,9 @@ public final class SurveyMaps {
         g.dispose();
         return img;
     }
+
+    /** Most colour-bar ticks drawn (about six are asked for). */
+    private static final int MAX_TICKS = 50;
 
     private static double niceCeil(double v) {
         if (!(v > 0)) {

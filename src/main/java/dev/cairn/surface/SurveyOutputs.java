@@ -41,15 +41,110 @@ public final class SurveyOutputs {
     private SurveyOutputs() {
     }
 
-    /** Writes every output into {@code dir} (created if needed); returns the paths written. */
+    /**
+     * Writes every output into {@code dir}; returns the paths written. All files are first written into a fresh
+     * temporary folder beside {@code dir}, which then replaces {@code dir} by renames, so a reader never sees a
+     * folder mixing the files of two runs, and a run that fails or is killed leaves the previous survey as it was
+     * (or, killed between the two renames, no folder at all). An existing {@code dir} is replaced only when it holds
+     * nothing but survey outputs (the files written here and PNG views).
+     */
     public static List<Path> writeAll(SurveyResult r, Path dir) {
-        List<Path> out = new ArrayList<>();
-        out.add(writeCsv(r, dir.resolve(CSV)));
-        out.add(writeJson(r, dir.resolve(JSON)));
-        out.add(writeVtk(r, dir.resolve(VTK)));
-        out.add(writeZonesCsv(r, dir.resolve(ZONES_CSV)));
-        out.addAll(SurveyMaps.writeAll(r, dir));
-        return out;
+        Path abs = dir.toAbsolutePath().normalize();
+        Path parent = abs.getParent();
+        String name = abs.getFileName().toString();
+        Path tmp = null;
+        try {
+            Files.createDirectories(parent);
+            requireReplaceable(abs);
+            removeStale(parent, name);
+            tmp = Files.createTempDirectory(parent, "." + name + ".");
+            try {
+                Files.setPosixFilePermissions(tmp, java.nio.file.attribute.PosixFilePermissions.fromString("rwxr-xr-x"));
+            } catch (UnsupportedOperationException ignored) {
+                // not a POSIX file system
+            }
+            List<Path> out = new ArrayList<>();
+            out.add(writeCsv(r, tmp.resolve(CSV)));
+            out.add(writeJson(r, tmp.resolve(JSON)));
+            out.add(writeVtk(r, tmp.resolve(VTK)));
+            out.add(writeZonesCsv(r, tmp.resolve(ZONES_CSV)));
+            out.addAll(SurveyMaps.writeAll(r, tmp));
+            Path old = null;
+            if (Files.exists(abs)) {
+                old = parent.resolve(tmp.getFileName() + ".old");
+                Files.move(abs, old, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+            }
+            Files.move(tmp, abs, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+            tmp = null;
+            if (old != null) {
+                deleteSurveyFolder(old);
+            }
+            List<Path> moved = new ArrayList<>();
+            for (Path p : out) {
+                moved.add(abs.resolve(p.getFileName().toString()));
+            }
+            return moved;
+        } catch (java.io.IOException e) {
+            throw new java.io.UncheckedIOException(dev.cairn.io.Messages.line("cannot write the survey into "
+                + abs + ": " + e.getMessage()), e);
+        } finally {
+            if (tmp != null) {
+                deleteSurveyFolder(tmp);
+            }
+        }
+    }
+
+    /** Refuses to replace something that is not a folder of survey outputs. */
+    private static void requireReplaceable(Path dir) throws java.io.IOException {
+        if (!Files.exists(dir, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            return;
+        }
+        if (!Files.isDirectory(dir, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            throw new dev.cairn.io.InputException(dev.cairn.io.Messages.path(dir) + ": --out exists and is not a "
+                + "folder");
+        }
+        try (var s = Files.list(dir)) {
+            for (Path p : (Iterable<Path>) s::iterator) {
+                if (!isSurveyFile(p)) {
+                    throw new dev.cairn.io.InputException(dev.cairn.io.Messages.path(dir) + ": --out holds "
+                        + dev.cairn.io.Messages.quote(p.getFileName().toString()) + ", which is not a survey output; "
+                        + "choose a new or empty folder");
+                }
+            }
+        }
+    }
+
+    private static boolean isSurveyFile(Path p) {
+        String n = p.getFileName().toString();
+        return Files.isRegularFile(p, java.nio.file.LinkOption.NOFOLLOW_LINKS) && (n.equals(CSV) || n.equals(JSON)
+            || n.equals(VTK) || n.equals(ZONES_CSV) || n.endsWith(".png") || n.startsWith(".") && n.endsWith(".tmp"));
+    }
+
+    /** Deletes a folder of survey outputs (only such files; the folder itself when then empty). */
+    private static void deleteSurveyFolder(Path dir) {
+        try (var s = Files.list(dir)) {
+            for (Path p : (Iterable<Path>) s::iterator) {
+                if (isSurveyFile(p)) {
+                    Files.deleteIfExists(p);
+                }
+            }
+            Files.deleteIfExists(dir);
+        } catch (java.io.IOException ignored) {
+            // best effort: a left-over hidden folder is removed by a later run
+        }
+    }
+
+    /** Temporary and replaced folders that a killed run left beside {@code name} (older than ten minutes). */
+    private static void removeStale(Path parent, String name) throws java.io.IOException {
+        long now = System.currentTimeMillis();
+        try (var s = Files.newDirectoryStream(parent, "." + name + ".*")) {
+            for (Path p : s) {
+                if (Files.isDirectory(p, java.nio.file.LinkOption.NOFOLLOW_LINKS)
+                    && now - Files.getLastModifiedTime(p).toMillis() > 10 * 60 * 1000L) {
+                    deleteSurveyFolder(p);
+                }
+            }
+        }
     }
 
     /** {@code facets.csv}: header line first (no comment lines), one row per facet in OBJ order. */

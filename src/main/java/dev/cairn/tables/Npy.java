@@ -87,6 +87,16 @@ public final class Npy {
      * @throws InputException naming {@code file} when the header is malformed or of another type
      */
     public static long[] readHeader(InputStream in, String file) throws IOException {
+        return readHeader(in, file, -1);
+    }
+
+    /**
+     * As {@link #readHeader(InputStream, String)}, also requiring that the data after the header fill the file of
+     * {@code fileSize} bytes exactly (when not negative): a header whose length field or shape was changed is
+     * refused instead of being read at the wrong offset.
+     */
+    public static long[] readHeader(InputStream in, String file, long fileSize) throws IOException {
+        file = dev.cairn.io.Messages.path(file);
         byte[] pre = in.readNBytes(10);
         if (pre.length < 10) {
             throw new InputException(file + ": not a .npy file (too short)");
@@ -109,7 +119,7 @@ public final class Npy {
         Matcher f = FORTRAN.matcher(h);
         Matcher s = SHAPE.matcher(h);
         if (!d.find() || !f.find() || !s.find()) {
-            throw new InputException(file + ": malformed .npy header: " + h.strip());
+            throw new InputException(file + ": malformed .npy header: " + dev.cairn.io.Messages.quote(h.strip()));
         }
         if (!d.group(1).equals("<f8")) {
             throw new InputException(file + ": .npy dtype " + d.group(1) + " not supported (need '<f8')");
@@ -117,14 +127,36 @@ public final class Npy {
         if (f.group(1).equals("True")) {
             throw new InputException(file + ": Fortran-order .npy not supported (need C order)");
         }
-        String[] parts = s.group(1).split(",");
+        if ((10 + len) % ALIGN != 0 || !h.endsWith("\n")) {
+            throw new InputException(file + ": malformed .npy header (length " + len + " not padded to "
+                + ALIGN + " bytes)");
+        }
+        String[] parts = s.group(1).split(",", -1);
         long[] shape = new long[parts.length];
         int n = 0;
-        for (String p : parts) {
-            if (!p.isBlank()) {
-                shape[n++] = Long.parseLong(p.strip());
+        for (int i = 0; i < parts.length; i++) {
+            String p = parts[i].strip();
+            if (p.isEmpty() && i == parts.length - 1 && i > 0) {
+                continue; // trailing comma of a Python tuple
             }
+            if (!p.matches("[0-9]{1,10}")) {
+                throw new InputException(file + ": malformed .npy shape " + dev.cairn.io.Messages.quote(s.group(1)));
+            }
+            shape[n++] = Long.parseLong(p);
         }
-        return java.util.Arrays.copyOf(shape, n);
+        if (n == 0) {
+            throw new InputException(file + ": .npy shape () is a scalar, not a table");
+        }
+        shape = java.util.Arrays.copyOf(shape, n);
+        double values = 1;
+        for (long dim : shape) {
+            values *= dim;
+        }
+        if (fileSize >= 0 && values * 8 != fileSize - 10 - len) {
+            throw new InputException(file + ": .npy header says " + java.util.Arrays.toString(shape) + " ("
+                + String.format(java.util.Locale.ROOT, "%.0f", values * 8) + " data bytes) but the file holds "
+                + (fileSize - 10 - len) + " bytes after the header");
+        }
+        return shape;
     }
 }

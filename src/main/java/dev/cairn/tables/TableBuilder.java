@@ -105,7 +105,7 @@ public final class TableBuilder {
         String format = shard ? TableFiles.NPY : r.format();
         long[] shape = shard ? new long[] {end - first, layout.columnCount()} : layout.dataShape();
         String sha = TableFiles.writeData(r.out(), format, shape, layout.columns(),
-            TableJob.chunkSource(work, end - first, r.chunkNodes(), layout.columnCount()));
+            TableJob.chunkSource(work, end - first, r.chunkNodes(), layout.columnCount(), fp));
         Map<String, Object> meta = metadata(layout, r.modelInfo(), r.version(), job.startedUtc(), nowUtc, fp);
         putData(meta, r.out(), format, shape, sha);
         if (shard) {
@@ -222,22 +222,29 @@ public final class TableBuilder {
         Path[] files = new Path[m];
         String fp = null;
         int count = -1;
+        List<String> columns = null;
+        long[] shape = null;
+        String tableFormat = null;
+        long[] ranges = new long[2 * m];
         for (Path p : shards) {
             Path side = TableFiles.sidecarPath(p);
             if (!java.nio.file.Files.isRegularFile(p) || !java.nio.file.Files.isRegularFile(side)) {
-                throw new InputException(p + ": shard or its sidecar " + side.getFileName() + " is missing");
+                throw new InputException(dev.cairn.io.Messages.path(p) + ": shard or its sidecar " + side.getFileName()
+                    + " is missing");
             }
             Map<String, Object> meta = TableFiles.readJson(side);
-            if (!(meta.get("shard") instanceof Map<?, ?> s)) {
+            dev.cairn.io.StrictJson.Fields f = new dev.cairn.io.StrictJson.Fields(meta, side, "");
+            if (!f.has("shard")) {
                 throw new InputException(side + ": not a shard (no 'shard' key)");
             }
-            int idx = ((Number) s.get("index")).intValue();
-            int cnt = ((Number) s.get("count")).intValue();
-            String f = String.valueOf(meta.get("job_fingerprint"));
+            dev.cairn.io.StrictJson.Fields s = f.object("shard");
+            int cnt = s.integer("count", 1, 100_000);
+            int idx = s.integer("index", 1, cnt);
+            String fpi = f.string("job_fingerprint");
             if (fp == null) {
-                fp = f;
+                fp = fpi;
                 count = cnt;
-            } else if (!fp.equals(f) || cnt != count) {
+            } else if (!fp.equals(fpi) || cnt != count) {
                 throw new InputException(p + ": shard of a different table (model, grid, options or shard count differ)");
             }
             if (cnt != m) {
@@ -246,25 +253,43 @@ public final class TableBuilder {
             if (metas[idx - 1] != null) {
                 throw new InputException(p + ": shard " + idx + "/" + cnt + " given twice");
             }
-            if (!TableFiles.sha256(p).equals(meta.get("data_sha256"))) {
+            String dataSha = f.string("data_sha256");
+            if (!TableFiles.sha256(p).equals(dataSha)) {
                 throw new InputException(p + ": data does not match the SHA-256 in its sidecar (damaged or changed)");
             }
+            List<String> cols = f.strings("columns", 1, 1000);
+            long[] ts = s.integers("table_shape", 2, 4, 1, Integer.MAX_VALUE);
+            String tf = s.string("table_format");
+            if (!TableFiles.NPY.equals(tf) && !TableFiles.CSV.equals(tf)) {
+                throw new InputException(side + ": key 'shard.table_format' must be \"npy\" or \"csv\"");
+            }
+            if (columns == null) {
+                columns = cols;
+                shape = ts;
+                tableFormat = tf;
+            } else if (!columns.equals(cols) || !java.util.Arrays.equals(shape, ts) || !tableFormat.equals(tf)) {
+                throw new InputException(p + ": shard of a different table (columns or shape differ)");
+            }
+            if (ts[ts.length - 1] != cols.size()) {
+                throw new InputException(side + ": table_shape " + java.util.Arrays.toString(ts) + " does not have "
+                    + cols.size() + " columns");
+            }
+            long rows = TableFiles.rowCount(ts, side);
+            long first = s.integer("first_node", 0L, rows);
+            long end = s.integer("end_node", first, rows);
+            int[] want = TableJob.shardRange((int) rows, idx, cnt);
+            if (first != want[0] || end != want[1]) {
+                throw new InputException(side + ": shard " + idx + "/" + cnt + " covers nodes " + first + "-" + end
+                    + ", expected " + want[0] + "-" + want[1]);
+            }
+            f.string("created_utc");
+            ranges[2 * (idx - 1)] = first;
+            ranges[2 * (idx - 1) + 1] = end;
             metas[idx - 1] = meta;
             files[idx - 1] = p;
         }
         Map<String, Object> first = metas[0];
-        Map<String, Object> s0 = (Map<String, Object>) first.get("shard");
-        List<Object> columnsObj = (List<Object>) first.get("columns");
-        List<String> columns = new java.util.ArrayList<>();
-        for (Object o : columnsObj) {
-            columns.add(String.valueOf(o));
-        }
-        List<Number> ts = (List<Number>) s0.get("table_shape");
-        long[] shape = new long[ts.size()];
-        for (int i = 0; i < shape.length; i++) {
-            shape[i] = ts.get(i).longValue();
-        }
-        String fmt = format != null ? format : String.valueOf(s0.get("table_format"));
+        String fmt = format != null ? format : tableFormat;
         int cols = columns.size();
         String created = String.valueOf(first.get("created_utc"));
         for (Map<String, Object> meta : metas) {
@@ -274,8 +299,8 @@ public final class TableBuilder {
             }
         }
         String sha = TableFiles.writeData(out, fmt, shape, columns, sink -> {
-            for (Path f : files) {
-                TableFiles.npySource(f, cols).forEach(sink);
+            for (int i = 0; i < files.length; i++) {
+                TableFiles.npySource(files[i], cols, ranges[2 * i + 1] - ranges[2 * i]).forEach(sink);
             }
         });
         Map<String, Object> meta = new LinkedHashMap<>(first);

@@ -6,6 +6,8 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import dev.cairn.io.AtomicFiles;
 import dev.cairn.io.InputException;
+import dev.cairn.io.Messages;
+import dev.cairn.io.StrictJson;
 import java.io.BufferedInputStream;
 import java.io.BufferedReader;
 import java.io.DataInputStream;
@@ -136,16 +138,16 @@ public final class TableFiles {
         }
     }
 
-    /** Reads a JSON object; errors name the file and line. */
+    /**
+     * Reads a JSON object strictly ({@link StrictJson}: no duplicate keys, no trailing content, no null top level);
+     * errors name the file and line. Typed access to its keys goes through {@link StrictJson.Fields}.
+     */
     public static Map<String, Object> readJson(Path file) {
-        try {
-            return MAPPER.readValue(Files.readAllBytes(file), new TypeReference<java.util.LinkedHashMap<String, Object>>() { });
-        } catch (JsonProcessingException e) {
-            throw InputException.json(file, e, "bad JSON", null);
-        } catch (IOException e) {
-            throw new InputException(file + ": cannot read: " + e.getMessage(), e);
-        }
+        return StrictJson.readObject(file, "bad JSON");
     }
+
+    /** Largest table file this program reads back into memory, elements (values). */
+    public static final long MAX_READ_VALUES = Integer.MAX_VALUE - 8;
 
     /** SHA-256 of a file, hex. */
     public static String sha256(Path file) {
@@ -177,15 +179,28 @@ public final class TableFiles {
 
     /** A source reading the rows of an {@code .npy} file of shape {@code (..., cols)}. */
     public static RowSource npySource(Path file, int cols) {
+        return npySource(file, cols, -1);
+    }
+
+    /**
+     * As {@link #npySource(Path, int)}, also requiring {@code expectedRows} rows (when not negative); the header is
+     * checked against the file size before any row is read.
+     */
+    public static RowSource npySource(Path file, int cols, long expectedRows) {
         return sink -> {
             try (DataInputStream in = new DataInputStream(new BufferedInputStream(Files.newInputStream(file), 1 << 16))) {
-                long[] shape = Npy.readHeader(in, file.toString());
+                long[] shape = Npy.readHeader(in, file.toString(), Files.size(file));
                 long rows = 1;
                 for (int i = 0; i + 1 < shape.length; i++) {
                     rows *= shape[i];
                 }
-                if (shape[shape.length - 1] != cols) {
-                    throw new InputException(file + ": " + shape[shape.length - 1] + " columns, expected " + cols);
+                if (shape.length < 2 || shape[shape.length - 1] != cols) {
+                    throw new InputException(Messages.path(file) + ": shape " + java.util.Arrays.toString(shape)
+                        + " does not have " + cols + " columns");
+                }
+                if (expectedRows >= 0 && rows != expectedRows) {
+                    throw new InputException(Messages.path(file) + ": " + rows + " rows, its sidecar says "
+                        + expectedRows);
                 }
                 int block = 4096;
                 double[] buf = new double[block * cols];
@@ -212,35 +227,31 @@ public final class TableFiles {
             throw new InputException(side + ": no such file (the metadata sidecar of " + data.getFileName() + ")");
         }
         Map<String, Object> meta = readJson(side);
-        Object colsObj = meta.get("columns");
-        Object shapeObj = meta.get("shape");
-        if (!(colsObj instanceof List<?> cl) || !(shapeObj instanceof List<?> sl)) {
-            throw new InputException(side + ": missing 'columns' or 'shape'");
-        }
-        List<String> columns = new ArrayList<>();
-        for (Object o : cl) {
-            columns.add(String.valueOf(o));
-        }
-        long[] shape = new long[sl.size()];
-        long rowsL = 1;
-        for (int i = 0; i < shape.length; i++) {
-            shape[i] = ((Number) sl.get(i)).longValue();
-            if (i + 1 < shape.length) {
-                rowsL *= shape[i];
-            }
-        }
+        StrictJson.Fields f = new StrictJson.Fields(meta, side, "");
+        List<String> columns = f.strings("columns", 1, 1000);
+        long[] shape = f.integers("shape", 2, 4, 1, Integer.MAX_VALUE);
         int cols = columns.size();
-        if (shape[shape.length - 1] != cols || rowsL * cols > Integer.MAX_VALUE - 8) {
+        long rowsL = rowCount(shape, side);
+        if (shape[shape.length - 1] != cols || (double) rowsL * cols > MAX_READ_VALUES) {
             throw new InputException(side + ": shape " + java.util.Arrays.toString(shape) + " does not fit " + cols
                 + " columns in memory");
         }
+        dev.cairn.io.MemoryBudget.require(8.0 * rowsL * cols, Messages.path(data) + ": reading the table");
+        String format = f.has("data_format") ? f.string("data_format") : formatOf(data);
+        if (!NPY.equals(format) && !CSV.equals(format)) {
+            throw new InputException(side + ": key 'data_format' must be \"npy\" or \"csv\", got "
+                + Messages.quote(format));
+        }
+        if (f.has("data_sha256") && !f.string("data_sha256").equalsIgnoreCase(sha256(data))) {
+            throw new InputException(Messages.path(data) + ": data does not match the SHA-256 in its sidecar "
+                + "(damaged or changed)");
+        }
         int rows = (int) rowsL;
         double[] values = new double[rows * cols];
-        String format = String.valueOf(meta.getOrDefault("data_format", formatOf(data)));
         try {
             if (NPY.equals(format)) {
                 try (DataInputStream in = new DataInputStream(new BufferedInputStream(Files.newInputStream(data), 1 << 16))) {
-                    long[] s = Npy.readHeader(in, data.toString());
+                    long[] s = Npy.readHeader(in, data.toString(), Files.size(data));
                     if (!java.util.Arrays.equals(s, shape)) {
                         throw new InputException(data + ": shape " + java.util.Arrays.toString(s)
                             + " differs from the sidecar's " + java.util.Arrays.toString(shape));
@@ -257,6 +268,19 @@ public final class TableFiles {
         }
         Grid grid = gridFromJson(meta, side, values, rows, cols);
         return new Table(grid, columns, values, meta);
+    }
+
+    /** Product of all but the last entry of a shape, refusing overflow. */
+    static long rowCount(long[] shape, Object where) {
+        long rows = 1;
+        for (int i = 0; i + 1 < shape.length; i++) {
+            if (shape[i] < 1 || rows > Integer.MAX_VALUE / shape[i]) {
+                throw new InputException(Messages.path(where) + ": shape " + java.util.Arrays.toString(shape)
+                    + " is not a table this program can hold");
+            }
+            rows *= shape[i];
+        }
+        return rows;
     }
 
     private static void readCsv(Path data, List<String> columns, double[] values, int rows) throws IOException {
@@ -286,10 +310,12 @@ public final class TableFiles {
                     throw InputException.at(data.toString(), lineNo, p.length + " fields, expected " + cols);
                 }
                 for (int c = 0; c < cols; c++) {
-                    try {
+                    if (p[c].equals("NaN")) {
+                        values[row * cols + c] = Double.NaN; // blank (excluded interior) node
+                    } else if (dev.cairn.io.Numbers.isDecimal(p[c])) {
                         values[row * cols + c] = Double.parseDouble(p[c]);
-                    } catch (NumberFormatException e) {
-                        throw InputException.at(data.toString(), lineNo, "'" + p[c] + "' is not a number");
+                    } else {
+                        throw InputException.at(data.toString(), lineNo, Messages.quote(p[c]) + " is not a number");
                     }
                 }
                 row++;
@@ -300,44 +326,41 @@ public final class TableFiles {
         }
     }
 
-    private static double[] doubles(Object o, Path side, String key) {
-        if (!(o instanceof List<?> l)) {
-            throw new InputException(side + ": grid key '" + key + "' missing");
-        }
-        double[] d = new double[l.size()];
-        for (int i = 0; i < d.length; i++) {
-            d[i] = ((Number) l.get(i)).doubleValue();
-        }
-        return d;
-    }
-
-    @SuppressWarnings("unchecked")
     static Grid gridFromJson(Map<String, Object> meta, Path side, double[] values, int rows, int cols) {
-        if (!(meta.get("grid") instanceof Map<?, ?> gm)) {
-            throw new InputException(side + ": missing 'grid'");
-        }
-        Map<String, Object> g = (Map<String, Object>) gm;
-        String kind = String.valueOf(g.get("kind"));
+        StrictJson.Fields g = new StrictJson.Fields(meta, side, "").object("grid");
+        String kind = g.string("kind");
+        double far = dev.cairn.io.Numbers.MAX_POINT_M;
+        Grid grid;
         switch (kind) {
             case "box": {
-                double[] n = doubles(g.get("nodes"), side, "nodes");
-                return new BoxGrid(doubles(g.get("origin_m"), side, "origin_m"), doubles(g.get("spacing_m"), side,
-                    "spacing_m"), new int[] {(int) n[0], (int) n[1], (int) n[2]});
+                long[] n = g.integers("nodes", 3, 3, 2, Integer.MAX_VALUE);
+                grid = new BoxGrid(g.numbers("origin_m", 3, 3, -far, far), g.numbers("spacing_m", 3, 3, 0, far),
+                    new int[] {(int) n[0], (int) n[1], (int) n[2]});
+                break;
             }
             case "sphere":
-                return new SphereGrid(doubles(g.get("centre_m"), side, "centre_m"), doubles(g.get("radii_m"), side,
-                    "radii_m"), ((Number) g.get("lat_step_deg")).doubleValue(),
-                    ((Number) g.get("lon_step_deg")).doubleValue());
+                grid = new SphereGrid(g.numbers("centre_m", 3, 3, -far, far), g.numbers("radii_m", 1, 1_000_000, 0,
+                    far), g.number("lat_step_deg", 0, 180), g.number("lon_step_deg", 0, 360));
+                break;
             case "points": {
+                if (cols < 3) {
+                    throw new InputException(side + ": a points table needs its x, y, z columns");
+                }
                 double[] xyz = new double[3 * rows];
                 for (int i = 0; i < rows; i++) {
                     System.arraycopy(values, i * cols, xyz, 3 * i, 3);
                 }
-                return new PointGrid(xyz, (String) g.get("source"), (String) g.get("source_sha256"));
+                grid = new PointGrid(xyz, g.optString("source"), g.optString("source_sha256"));
+                break;
             }
             default:
-                throw new InputException(side + ": unknown grid kind '" + kind + "'");
+                throw new InputException(side + ": unknown grid kind " + Messages.quote(kind));
         }
+        if (grid.nodeCount() != rows) {
+            throw new InputException(side + ": grid has " + grid.nodeCount() + " nodes but the data has " + rows
+                + " rows");
+        }
+        return grid;
     }
 
     /** Deletes a file if present (for clean-up of our own outputs). */

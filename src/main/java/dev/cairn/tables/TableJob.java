@@ -5,11 +5,14 @@ import dev.cairn.gravity.FieldModel;
 import dev.cairn.gravity.FieldSample;
 import dev.cairn.io.AtomicFiles;
 import dev.cairn.io.InputException;
+import dev.cairn.io.Messages;
+import dev.cairn.io.StrictJson;
 import dev.cairn.util.ParallelChunks;
 import dev.cairn.util.ProgressListener;
 import java.io.BufferedInputStream;
 import java.io.DataInputStream;
 import java.io.IOException;
+import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -25,6 +28,10 @@ import java.util.function.BooleanSupplier;
  * chunks; a resumed run checks the fingerprint, skips them and computes the rest. Every row is computed by the same
  * arithmetic from its node index alone (in parallel with {@link ParallelChunks}), so the assembled file is
  * byte-identical whatever the thread count, the interruptions or the sharding.
+ *
+ * <p>Every chunk has a checksum file {@code chunk-NNNNNNNN.sha256}: the SHA-256 of the job fingerprint, the chunk
+ * number and the chunk's bytes. A resumed run reuses a chunk only when its size and checksum match (a flipped,
+ * zeroed or copied chunk is computed again), and assembly checks every chunk once more as it reads it.
  */
 public final class TableJob {
     /** Default nodes per checkpoint chunk. */
@@ -83,14 +90,20 @@ public final class TableJob {
                 if (!Files.isRegularFile(manifest)) {
                     throw new InputException("--resume: no interrupted run found (" + manifest + " is missing)");
                 }
-                Map<String, Object> m = TableFiles.readJson(manifest);
-                if (!fingerprint.equals(m.get("fingerprint")) || ((Number) m.get("chunk_nodes")).intValue() != chunkNodes
-                    || ((Number) m.get("first_node")).intValue() != first
-                    || ((Number) m.get("end_node")).intValue() != end) {
+                StrictJson.Fields m = new StrictJson.Fields(TableFiles.readJson(manifest), manifest, "");
+                if (!fingerprint.equals(m.string("fingerprint"))
+                    || m.integer("chunk_nodes", 1, Integer.MAX_VALUE) != chunkNodes
+                    || m.integer("first_node", 0, Integer.MAX_VALUE) != first
+                    || m.integer("end_node", 0, Integer.MAX_VALUE) != end) {
                     throw new InputException("--resume: " + workDir + " belongs to a different table (model, grid, "
                         + "options or --chunk-nodes differ); run without --resume to start again");
                 }
-                started = String.valueOf(m.get("started_utc"));
+                started = m.string("started_utc");
+                if (!started.matches("\\d{4}-\\d{2}-\\d{2}T\\d{2}:\\d{2}:\\d{2}(\\.\\d+)?Z")) {
+                    throw new InputException(Messages.path(manifest) + ": key 'started_utc' is not an ISO-8601 UTC "
+                        + "time");
+                }
+                removeStaleTemporaries(workDir);
             } else {
                 clean(workDir);
                 Files.createDirectories(workDir);
@@ -104,9 +117,10 @@ public final class TableJob {
             }
             int reused = 0;
             AtomicLong done = new AtomicLong();
-            for (int c = 0; c < chunks; c++) {
-                if (Files.isRegularFile(chunkFile(workDir, c))
-                    && Files.size(chunkFile(workDir, c)) == 8L * cols * chunkLength(c, total, chunkNodes)) {
+            boolean[] valid = new boolean[chunks];
+            for (int c = 0; c < chunks && resume; c++) {
+                if (chunkIntact(workDir, c, 8L * cols * chunkLength(c, total, chunkNodes), fingerprint)) {
+                    valid[c] = true;
                     reused++;
                     done.addAndGet(chunkLength(c, total, chunkNodes));
                 }
@@ -116,7 +130,7 @@ public final class TableJob {
             double[] rows = new double[Math.min(chunkNodes, Math.max(total, 1)) * cols];
             for (int c = 0; c < chunks; c++) {
                 int len = chunkLength(c, total, chunkNodes);
-                if (Files.isRegularFile(chunkFile(workDir, c)) && Files.size(chunkFile(workDir, c)) == 8L * cols * len) {
+                if (valid[c]) {
                     continue;
                 }
                 int from = first + c * chunkNodes;
@@ -126,7 +140,11 @@ public final class TableJob {
                         layout.computeRow(s.ev, from + i, s.sample, rows, i * cols);
                     }
                 }, (d, t) -> progress.progress(base + d, total));
-                AtomicFiles.write(chunkFile(workDir, c), out -> Npy.writeDoubles(out, rows, 0, len * cols));
+                Files.deleteIfExists(sumFile(workDir, c));
+                java.security.MessageDigest md = chunkDigest(fingerprint, c);
+                AtomicFiles.write(chunkFile(workDir, c), out -> Npy.writeDoubles(
+                    new java.security.DigestOutputStream(out, md), rows, 0, len * cols));
+                AtomicFiles.writeString(sumFile(workDir, c), java.util.HexFormat.of().formatHex(md.digest()) + "\n");
                 done.addAndGet(len);
                 computed++;
                 if (c + 1 < chunks && stopRequested.getAsBoolean()) {
@@ -156,13 +174,67 @@ public final class TableJob {
         return dir.resolve(String.format(java.util.Locale.ROOT, "chunk-%08d.f64", c));
     }
 
-    /** A source of rows for the writers: the finished chunks of {@code workDir}, in node order. */
-    public static TableFiles.RowSource chunkSource(Path workDir, int nodes, int chunkNodes, int cols) {
+    private static Path sumFile(Path dir, int c) {
+        return dir.resolve(String.format(java.util.Locale.ROOT, "chunk-%08d.sha256", c));
+    }
+
+    /** Digest of a chunk, seeded with the job fingerprint and chunk number (a chunk copied elsewhere fails). */
+    private static java.security.MessageDigest chunkDigest(String fingerprint, int c) {
+        try {
+            java.security.MessageDigest md = java.security.MessageDigest.getInstance("SHA-256");
+            md.update((fingerprint + ":" + c + ":").getBytes(java.nio.charset.StandardCharsets.UTF_8));
+            return md;
+        } catch (java.security.NoSuchAlgorithmException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
+    /** Whether chunk {@code c} is on disk with the expected size and a matching checksum file. */
+    private static boolean chunkIntact(Path dir, int c, long bytes, String fingerprint) throws IOException {
+        Path f = chunkFile(dir, c);
+        Path sum = sumFile(dir, c);
+        if (!Files.isRegularFile(f) || Files.size(f) != bytes || !Files.isRegularFile(sum) || Files.size(sum) > 128) {
+            return false;
+        }
+        String want = Files.readString(sum, java.nio.charset.StandardCharsets.ISO_8859_1).strip();
+        java.security.MessageDigest md = chunkDigest(fingerprint, c);
+        try (InputStream in = Files.newInputStream(f)) {
+            byte[] buf = new byte[1 << 16];
+            int n;
+            while ((n = in.read(buf)) > 0) {
+                md.update(buf, 0, n);
+            }
+        }
+        return want.equals(java.util.HexFormat.of().formatHex(md.digest()));
+    }
+
+    /** Temporary files of chunk writes that a killed run left behind. */
+    private static void removeStaleTemporaries(Path workDir) throws IOException {
+        try (var s = Files.list(workDir)) {
+            for (Path p : (Iterable<Path>) s::iterator) {
+                String n = p.getFileName().toString();
+                if (n.startsWith(".") && n.endsWith(".tmp") && Files.isRegularFile(p)) {
+                    Files.deleteIfExists(p);
+                }
+            }
+        }
+    }
+
+    /**
+     * A source of rows for the writers: the finished chunks of {@code workDir}, in node order, each checked against
+     * its checksum as it is read.
+     */
+    public static TableFiles.RowSource chunkSource(Path workDir, int nodes, int chunkNodes, int cols,
+                                                   String fingerprint) {
         return sink -> {
             int chunks = (nodes + chunkNodes - 1) / chunkNodes;
             double[] rows = new double[Math.min(chunkNodes, Math.max(nodes, 1)) * cols];
             for (int c = 0; c < chunks; c++) {
                 int len = chunkLength(c, nodes, chunkNodes);
+                if (!chunkIntact(workDir, c, 8L * cols * len, fingerprint)) {
+                    throw new InputException(Messages.path(chunkFile(workDir, c)) + ": checkpoint chunk changed or "
+                        + "damaged after it was written; run again with --resume to compute it again");
+                }
                 try (DataInputStream in = new DataInputStream(new BufferedInputStream(
                     Files.newInputStream(chunkFile(workDir, c)), 1 << 16))) {
                     Npy.readDoubles(in, rows, 0, len * cols);

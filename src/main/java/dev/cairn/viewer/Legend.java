@@ -47,8 +47,13 @@ public record Legend(String title, String units, Quantity.Kind kind, double min,
         double gap = 0.08 * (max - min);
         java.util.List<Double> t = new java.util.ArrayList<>();
         t.add(min);
-        for (double v = Math.ceil(min / step) * step; v < max; v += step) {
-            if (v - min >= gap && max - v >= gap) {
+        // Ticks by an integer count, never by floating-point progress (a step below one ulp of min would never end).
+        double k0 = Math.ceil(min / step);
+        double k1 = Math.ceil(max / step) - 1;
+        long n = k1 >= k0 && k1 - k0 < 50 ? (long) (k1 - k0) + 1 : 0;
+        for (long i = 0; i < n; i++) {
+            double v = (k0 + i) * step;
+            if (v < max && v - min >= gap && max - v >= gap) {
                 t.add(Math.abs(v) < 1e-12 * step ? 0.0 : v);
             }
         }

@@ -30,7 +30,9 @@ public final class SurveyData {
     public static final List<String> REQUIRED = List.of("facet", "cx_m", "cy_m", "cz_m", "lat_deg", "lon_deg",
         "slope_deg", "g_eff_m_s2", "potential_eff_m2_s2", "dynamic_height_m", "lift_off", "escape_speed_m_s", "zone");
 
-    private static final ObjectMapper JSON = new ObjectMapper();
+    private static final ObjectMapper JSON = dev.cairn.io.StrictJson.MAPPER;
+    /** Most columns a facets.csv may have (we write about twenty). */
+    public static final int MAX_COLUMNS = 256;
 
     private final Path dir;
     private final int facets;
@@ -73,7 +75,7 @@ public final class SurveyData {
         JsonNode summary = readSummary(summaryFile);
         String sha = text(summary, "model_sha256", summaryFile);
         JsonNode nf = summary.get("facets");
-        if (nf == null || !nf.canConvertToInt()) {
+        if (nf == null || !nf.isIntegralNumber() || !nf.canConvertToInt()) {
             throw new InputException(summaryFile + ": missing or non-integer key 'facets'");
         }
         if (nf.asInt() != modelFacets) {
@@ -85,11 +87,26 @@ public final class SurveyData {
             throw new InputException(summaryFile + ": model_sha256 " + abbreviate(sha) + " does not match "
                 + modelFile + " (" + abbreviate(actual) + "): this survey belongs to another model");
         }
+        dev.cairn.io.RunInputs.register(summaryFile);
+        dev.cairn.io.RunInputs.register(csv);
         Map<String, double[]> cols = readCsv(csv, modelFacets);
+        requireZones(cols.get("zone"), csv, modelFacets);
         Path zonesCsv = dir.resolve("zones.csv");
         List<Zone> zones = Files.isRegularFile(zonesCsv) ? readZones(zonesCsv, cols, modelFacets)
             : zonesOf(cols.get("zone"), cols, modelFacets);
         return new SurveyData(dir, modelFacets, cols, actual, zones);
+    }
+
+    /** Zone ranks are 0 (no zone) or whole numbers from 1 to the facet count: anything else is a damaged file. */
+    private static void requireZones(double[] zone, Path csv, int n) {
+        for (int f = 0; f < zone.length; f++) {
+            double z = zone[f];
+            // exact: ranks are integers written as such
+            if (!Double.isNaN(z) && (z < 0 || z > n || z != Math.rint(z))) {
+                throw InputException.at(csv.toString(), f + 2, "column 'zone': " + z + " is not a zone rank (0 for "
+                    + "none, else a whole number from 1 to " + n + ")");
+            }
+        }
     }
 
     /** A survey from columns in memory (no files, no checks), for colouring tests and callers that built it. */
@@ -108,7 +125,7 @@ public final class SurveyData {
             throw new InputException(file + ": no such file (not a survey directory?)");
         }
         try {
-            JsonNode n = JSON.readTree(Files.readAllBytes(file));
+            JsonNode n = JSON.readTree(dev.cairn.io.StrictJson.bytes(file));
             if (n == null || !n.isObject()) {
                 throw new InputException(file + ": expected a JSON object");
             }
@@ -156,9 +173,15 @@ public final class SurveyData {
                 throw InputException.at(f, 1, "empty file, expected a header line");
             }
             String[] names = header.trim().split(",", -1);
+            if (names.length > MAX_COLUMNS) {
+                throw InputException.at(f, 1, names.length + " columns, more than the " + MAX_COLUMNS + " accepted");
+            }
             Map<String, Integer> index = new HashMap<>();
             for (int i = 0; i < names.length; i++) {
-                index.put(names[i].trim(), i);
+                if (index.put(names[i].trim(), i) != null) {
+                    throw InputException.at(f, 1, "column " + dev.cairn.io.Messages.quote(names[i].trim())
+                        + " appears twice");
+                }
             }
             for (String req : REQUIRED) {
                 if (!index.containsKey(req)) {
@@ -234,11 +257,12 @@ public final class SurveyData {
         if (s.isEmpty() || s.equalsIgnoreCase("nan")) {
             return Double.NaN;
         }
-        try {
-            return Double.parseDouble(s);
-        } catch (NumberFormatException e) {
-            throw InputException.at(file, lineNo, "column '" + column + "': '" + s + "' is not a number");
+        double v = dev.cairn.io.Numbers.isDecimal(s) ? Double.parseDouble(s) : Double.NaN;
+        if (!Double.isFinite(v)) {
+            throw InputException.at(file, lineNo, "column " + dev.cairn.io.Messages.quote(column) + ": "
+                + dev.cairn.io.Messages.quote(s) + " is not a finite number");
         }
+        return v;
     }
 
     private static boolean isNanText(String line, int start, int end) {
@@ -248,23 +272,20 @@ public final class SurveyData {
 
     /** Columns the viewer does not need may hold text: those cells read as NaN. */
     private static double parseLenient(String line, int start, int end) {
-        try {
-            return Double.parseDouble(line.substring(start, end).trim());
-        } catch (NumberFormatException e) {
-            return Double.NaN;
-        }
+        String s = line.substring(start, end).trim();
+        return dev.cairn.io.Numbers.isDecimal(s) ? Double.parseDouble(s) : Double.NaN;
     }
 
     private static List<Zone> zonesOf(double[] zone, Map<String, double[]> cols, int n) {
         int maxRank = 0;
         for (double z : zone) {
-            if (z > maxRank) {
+            if (z > maxRank && z <= n) { // ranks beyond the facet count cannot occur (refused by read)
                 maxRank = (int) Math.round(z);
             }
         }
         int[] count = new int[maxRank + 1];
         for (double z : zone) {
-            if (z >= 1) {
+            if (z >= 1 && Math.round(z) <= maxRank) {
                 count[(int) Math.round(z)]++;
             }
         }
