@@ -382,6 +382,43 @@ class ReaderFuzzTest {
         st.finish();
     }
 
+    /**
+     * The field-model options (--tolerance, --exact) on field and survey, with hostile numbers and both options
+     * together; a valid tolerance must run the hierarchical model and give finite output.
+     */
+    @Test
+    void fieldModelOptions() {
+        Stats st = new Stats("field-options");
+        Mutator m = new Mutator(SEED + 7);
+        Path obj = write(dir.resolve("box.obj"), BOX_OBJ);
+        Path pts = write(dir.resolve("pts.csv"), POINTS);
+        String[] sane = {"1e-10", "1e-6", "1e-13", "1e-2", "3e-9"};
+        int n = cases(120);
+        for (int i = 0; i < n; i++) {
+            String tol = sane[i % sane.length];
+            if (i % 3 != 0) {
+                tol = m.random().nextBoolean() ? m.hostileNumber() : m.replaceNumber(tol);
+            }
+            List<String> a = new ArrayList<>();
+            if (i % 4 == 3) {
+                a.addAll(List.of("survey", obj.toString(), "--density", "2000", "--threads", "1", "--out",
+                    dir.resolve("sv").toString()));
+            } else {
+                a.addAll(List.of("field", obj.toString(), "--density", "2000", "--points", pts.toString(),
+                    "--threads", "1"));
+            }
+            a.addAll(List.of("--tolerance", tol));
+            if (i % 5 == 4) {
+                a.add("--exact");
+            }
+            Outcome o = cli(st, a.toArray(new String[0]));
+            if (a.get(0).equals("field")) {
+                noNanText(st, o, "field --tolerance " + tol);
+            }
+        }
+        st.finish();
+    }
+
     @Test
     void bodyDescriptionReader() {
         Stats st = new Stats("description");
