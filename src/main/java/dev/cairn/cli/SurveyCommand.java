@@ -174,6 +174,9 @@ public final class SurveyCommand implements Callable<Integer> {
         if (r.fieldCheck() != null && r.fieldCheck().samples() > 0) {
             o.printf(Locale.ROOT, "Field check  max relative error against the exact sum on %d sampled facets: |g| %.2e, "
                 + "U %.2e%n", r.fieldCheck().samples(), r.fieldCheck().maxRelG(), r.fieldCheck().maxRelU());
+        } else {
+            o.printf(Locale.ROOT, "Field check  exact direct sum (no approximation; --tolerance selects the hierarchical "
+                + "model)%n");
         }
         o.printf(Locale.ROOT, "Spin         %s, pole [%.4f, %.4f, %.4f]%n", Double.isInfinite(p) ? "none"
             : String.format(Locale.ROOT, "period %.6g s (%.4g h)", p, p / 3600), ax[0], ax[1], ax[2]);
