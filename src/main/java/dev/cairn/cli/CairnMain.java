@@ -23,6 +23,7 @@ import picocli.CommandLine.Command;
         CompareCommand.class,
         TableCommand.class,
         TableMergeCommand.class,
+        HarmonicsCommand.class,
         BenchCommand.class,
         dev.cairn.viewer.ViewCommand.class,
         dev.cairn.viewer.RenderCommand.class,
