@@ -92,6 +92,41 @@ public final class HarmonicsCommand implements Callable<Integer> {
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
         }
+        double[] c = o.equals("com") ? body.massProperties().centerOfMass() : null;
+        long t0 = System.nanoTime();
+        Computed r = compute(body, degree, c, referenceRadius, nThreads);
+        HarmonicCoefficients h = r.coefficients();
+        double seconds = (System.nanoTime() - t0) * 1e-9;
+        long facets = r.facets();
+        List<Path> files = r.files();
+        String originText = o.equals("com") ? "centre of mass" : "model frame origin";
+        String sha = sha256(files);
+        print(out, body, h, originText, referenceRadius == null, seconds, facets, nThreads);
+        if (this.out != null) {
+            HarmonicsFile.write(this.out, h, new HarmonicsFile.Source(body.source().toString(), sha, originText));
+            err.println("cairn: wrote " + this.out);
+        }
+        err.flush();
+        return 0;
+    }
+
+    /** Coefficients of a body with the files that define it and its facet count. */
+    record Computed(HarmonicCoefficients coefficients, List<Path> files, long facets) {
+    }
+
+    /**
+     * Coefficients of {@code body} (its polyhedron, or its regions superposed with their density contrasts) to
+     * {@code degree}, about {@code origin} (null: the model frame's origin) with reference radius {@code ref} (null:
+     * the Brillouin radius about the origin); checks the memory needed first.
+     */
+    static Computed compute(BodyModel body, int degree, double[] origin, Double ref, int threads) {
+        if (degree < 0) {
+            throw new InputException("--degree must be 0 or more, got " + degree);
+        }
+        if (degree > HarmonicCoefficients.MAX_DEGREE) {
+            throw new InputException("--degree " + degree + " is above the largest supported degree "
+                + HarmonicCoefficients.MAX_DEGREE + " (the exact triangle rule's limit)");
+        }
         List<TriangleMesh> meshes = new ArrayList<>();
         List<Double> dens = new ArrayList<>();
         List<Path> files = new ArrayList<>();
@@ -118,35 +153,24 @@ public final class HarmonicsCommand implements Callable<Integer> {
         for (TriangleMesh m : meshes) {
             facets += m.facetCount();
         }
-        long need = bytesNeeded(facets, degree, nThreads);
+        long need = bytesNeeded(facets, degree, threads);
         Runtime rt = Runtime.getRuntime();
         long free = rt.maxMemory() - (rt.totalMemory() - rt.freeMemory());
         if (need > free) {
             throw new InputException(String.format(Locale.ROOT, "--degree %d on %d facets needs about %d MB, only %d "
                 + "MB free (lower --degree or raise the heap)", degree, facets, need >> 20, free >> 20));
         }
-        double[] c = o.equals("com") ? body.massProperties().centerOfMass() : new double[3];
+        double[] c = origin != null ? origin.clone() : new double[3];
         double rb = 0;
         for (TriangleMesh m : meshes) {
             rb = Math.max(rb, HarmonicCoefficients.maxDistance(m, c));
         }
-        double ref = referenceRadius != null ? referenceRadius : rb;
+        double r = ref != null ? ref : rb;
         double[] d = new double[dens.size()];
         for (int i = 0; i < d.length; i++) {
             d[i] = dens.get(i);
         }
-        long t0 = System.nanoTime();
-        HarmonicCoefficients h = HarmonicCoefficients.ofPolyhedra(meshes, d, c, ref, degree, nThreads);
-        double seconds = (System.nanoTime() - t0) * 1e-9;
-        String originText = o.equals("com") ? "centre of mass" : "model frame origin";
-        String sha = sha256(files);
-        print(out, body, h, originText, referenceRadius == null, seconds, facets, nThreads);
-        if (this.out != null) {
-            HarmonicsFile.write(this.out, h, new HarmonicsFile.Source(body.source().toString(), sha, originText));
-            err.println("cairn: wrote " + this.out);
-        }
-        err.flush();
-        return 0;
+        return new Computed(HarmonicCoefficients.ofPolyhedra(meshes, d, c, r, degree, threads), files, facets);
     }
 
     private static void print(PrintWriter out, BodyModel body, HarmonicCoefficients h, String originText,
