@@ -24,6 +24,7 @@ import picocli.CommandLine.Command;
         TableCommand.class,
         TableMergeCommand.class,
         HarmonicsCommand.class,
+        EquilibriaCommand.class,
         BenchCommand.class,
         dev.cairn.viewer.ViewCommand.class,
         dev.cairn.viewer.RenderCommand.class,
