@@ -38,7 +38,8 @@ import picocli.CommandLine.Spec;
  * {@code cairn equilibria}: equilibrium points of a uniformly rotating body in its body-fixed frame, where gravity and
  * the centrifugal acceleration balance: ∇V = g + ω² r⊥ = 0 with V = U + ½ω²|r⊥|² (shared references §8; Scheeres
  * 2012). Search: a grid of |∇V| over a cube about the centre of mass reaching 1.6 times the larger of the synchronous
- * radius (GM/ω²)^{1/3} and the Brillouin radius, local minima as seeds, then Newton's method on ∇V with the Hessian
+ * radius (GM/ω²)^{1/3} and the Brillouin radius, its local minima, lowest 0.5 % and a
+ * coarse multistart inside the Brillouin sphere as seeds, then Newton's method on ∇V with the Hessian
  * H = ∇∇U + ω²(1 − ω̂ω̂ᵀ) (pseudo-inverse by SVD, step limited and backtracked). Linearisation:
  * δr̈ + 2ω×δṙ = H δr, the 6×6 matrix [[0, 1], [H, −2[ω×]]]; eigenvalues by Commons Math.
  */
@@ -162,7 +163,13 @@ public final class EquilibriaCommand implements Callable<Integer> {
         double[] a = new double[3];
         for (int p = 0; p < mag.length; p++) {
             effectiveGradient(s, p * FieldSample.SIZE, pts[3 * p], pts[3 * p + 1], pts[3 * p + 2], com, axis, w, a);
-            mag[p] = Math.sqrt(a[0] * a[0] + a[1] * a[1] + a[2] * a[2]);
+            // |∇V| relative to its two parts |g| + ω²|r⊥|: small near every root, whatever the field's strength there
+            double gx = FieldSample.accelerationNorm(s, p * FieldSample.SIZE);
+            double cx = a[0] - s[p * FieldSample.SIZE + FieldSample.AX];
+            double cy = a[1] - s[p * FieldSample.SIZE + FieldSample.AY];
+            double cz = a[2] - s[p * FieldSample.SIZE + FieldSample.AZ];
+            mag[p] = Math.sqrt(a[0] * a[0] + a[1] * a[1] + a[2] * a[2])
+                / (gx + Math.sqrt(cx * cx + cy * cy + cz * cz) + Double.MIN_NORMAL);
         }
         List<double[]> seeds = new ArrayList<>();
         for (int i = 1; i < n - 1; i++) {
@@ -181,6 +188,34 @@ public final class EquilibriaCommand implements Callable<Integer> {
                         }
                     }
                     if (min) {
+                        seeds.add(new double[] {pts[3 * p], pts[3 * p + 1], pts[3 * p + 2]});
+                    }
+                }
+            }
+        }
+        // Also the lowest 0.5 % of the grid by |∇V| (at most 2000 points): a shallow valley of |∇V| can hold two
+        // roots (e.g. an interior maximum of V next to a soft saddle) with a single grid minimum between them.
+        int extra = Math.min(2000, Math.max(1, mag.length / 200));
+        Integer[] byMag = new Integer[mag.length];
+        for (int p = 0; p < mag.length; p++) {
+            byMag[p] = p;
+        }
+        Arrays.sort(byMag, Comparator.comparingDouble((Integer p) -> mag[p]).thenComparingInt(p -> p));
+        for (int k = 0; k < extra; k++) {
+            int p = byMag[k];
+            seeds.add(new double[] {pts[3 * p], pts[3 * p + 1], pts[3 * p + 2]});
+        }
+        // And a coarse multistart inside the Brillouin sphere (about 16 points per axis over the cube), where roots
+        // can lie closer together than the grid resolves along soft directions of the Hessian.
+        int stride = Math.max(1, n / 16);
+        for (int i = 0; i < n; i += stride) {
+            for (int j = 0; j < n; j += stride) {
+                for (int k = 0; k < n; k += stride) {
+                    int p = (i * n + j) * n + k;
+                    double dx = pts[3 * p] - com[0];
+                    double dy = pts[3 * p + 1] - com[1];
+                    double dz = pts[3 * p + 2] - com[2];
+                    if (dx * dx + dy * dy + dz * dz < brillouin * brillouin) {
                         seeds.add(new double[] {pts[3 * p], pts[3 * p + 1], pts[3 * p + 2]});
                     }
                 }
