@@ -70,8 +70,17 @@ public final class EquilibriaCommand implements Callable<Integer> {
     @Option(names = "--json", description = "Print the result as JSON on standard output instead of the table.")
     boolean json;
 
-    @Option(names = "--out", paramLabel = "DIR", description = "Write DIR/equilibria.json.")
+    @Option(names = "--out", paramLabel = "DIR", description = "Write DIR/equilibria.json and zero-velocity maps "
+        + "(PNG of the effective potential in three planes through the centre of mass).")
     Path outDir;
+
+    @Option(names = "--jacobi", paramLabel = "J", description = "Shade, on the maps, the region forbidden to a "
+        + "particle with this Jacobi constant (m^2/s^2; where V < -J).")
+    Double jacobi;
+
+    @Option(names = "--map-size", paramLabel = "PIXELS", description = "Map resolution, 100 to 1200 (default: "
+        + "${DEFAULT-VALUE}).")
+    int mapSize = 300;
 
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all processors).")
     int threads = ParallelChunks.defaultThreads();
@@ -99,6 +108,12 @@ public final class EquilibriaCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         if (grid < 8 || grid > 200) {
             throw new InputException("--grid must be 8 to 200, got " + grid);
+        }
+        if (mapSize < 100 || mapSize > 1200) {
+            throw new InputException("--map-size must be 100 to 1200, got " + mapSize);
+        }
+        if (jacobi != null && !Double.isFinite(jacobi)) {
+            throw new InputException("--jacobi must be a finite number, got " + jacobi);
         }
         BodyModel body = model.load(spinOptions);
         for (String w : body.warnings()) {
@@ -129,6 +144,10 @@ public final class EquilibriaCommand implements Callable<Integer> {
             Path f = outDir.resolve("equilibria.json");
             AtomicFiles.writeString(f, text);
             err.println("cairn: wrote " + f);
+            for (Path m : ZeroVelocityMaps.write(outDir, field, mp.centerOfMass(), mp.brillouinRadius(), spin, r,
+                jacobi, mapSize, Math.max(1, threads))) {
+                err.println("cairn: wrote " + m);
+            }
         }
         err.flush();
         return 0;
@@ -480,5 +499,231 @@ public final class EquilibriaCommand implements Callable<Integer> {
         }
         j.put("points", list);
         return j;
+    }
+
+    /**
+     * Zero-velocity maps: the effective potential V in three planes through the centre of mass (the equatorial plane
+     * and the two planes holding the pole), with contour lines V = −J at the equilibria's Jacobi constants, the body's
+     * cross-section (from the field's inside/outside location), the equilibria near the plane marked and numbered, a
+     * colour bar, axes in metres and the caution line; with a Jacobi constant J the region V &lt; −J, forbidden to a
+     * particle of that J, is shaded.
+     */
+    static final class ZeroVelocityMaps {
+        private static final int LEFT = 80;
+        private static final int TOP = 104;
+        private static final int RIGHT = 150;
+        private static final int BOTTOM = 96;
+        private static final int[] RAMP = {0x201A40, 0x2F5A8C, 0x35967A, 0xC9B85A, 0xF6F0D6};
+
+        private ZeroVelocityMaps() {
+        }
+
+        static List<Path> write(Path dir, FieldModel field, double[] com, double brillouin, SpinState spin, Result r,
+                                Double jacobi, int size, int threads) {
+            double[] pole = spin.axis();
+            double[] e1 = Math.abs(pole[0]) > 0.999 ? new double[] {0, 1, 0} : new double[] {1, 0, 0};
+            double d = e1[0] * pole[0] + e1[1] * pole[1] + e1[2] * pole[2];
+            for (int i = 0; i < 3; i++) {
+                e1[i] -= d * pole[i];
+            }
+            double n1 = Math.sqrt(e1[0] * e1[0] + e1[1] * e1[1] + e1[2] * e1[2]);
+            for (int i = 0; i < 3; i++) {
+                e1[i] /= n1;
+            }
+            double[] e2 = {pole[1] * e1[2] - pole[2] * e1[1], pole[2] * e1[0] - pole[0] * e1[2],
+                pole[0] * e1[1] - pole[1] * e1[0]};
+            boolean zPole = pole[2] > 0.999;
+            double extent = 1.25 * brillouin;
+            for (Point p : r.points()) {
+                extent = Math.max(extent, 1.15 * p.distance());
+            }
+            List<Path> files = new ArrayList<>();
+            files.add(plane(dir.resolve("map-equatorial.png"), field, com, e1, e2, zPole ? "x" : "e1",
+                zPole ? "y" : "e2", "equatorial plane", extent, spin, r, jacobi, size, threads));
+            files.add(plane(dir.resolve("map-meridian-1.png"), field, com, e1, pole, zPole ? "x" : "e1",
+                zPole ? "z" : "pole", "plane of the pole and " + (zPole ? "x" : "e1"), extent, spin, r, jacobi, size,
+                threads));
+            files.add(plane(dir.resolve("map-meridian-2.png"), field, com, e2, pole, zPole ? "y" : "e2",
+                zPole ? "z" : "pole", "plane of the pole and " + (zPole ? "y" : "e2"), extent, spin, r, jacobi, size,
+                threads));
+            return files;
+        }
+
+        private static Path plane(Path file, FieldModel field, double[] c, double[] u, double[] v, String uName,
+                                  String vName, String title, double extent, SpinState spin, Result r,
+                                  Double jacobi, int n, int threads) {
+            double w = spin.omega();
+            double[] pole = spin.axis();
+            double[] pts = new double[3 * n * n];
+            double h = 2 * extent / n;
+            for (int j = 0; j < n; j++) {
+                for (int i = 0; i < n; i++) {
+                    double a = -extent + (i + 0.5) * h;
+                    double b = extent - (j + 0.5) * h;
+                    int q = 3 * (j * n + i);
+                    for (int k = 0; k < 3; k++) {
+                        pts[q + k] = c[k] + a * u[k] + b * v[k];
+                    }
+                }
+            }
+            double[] s = BatchEvaluation.evaluate(field, pts, false, threads, ProgressListener.NONE);
+            double[] pot = new double[n * n];
+            boolean[] inside = new boolean[n * n];
+            for (int p = 0; p < n * n; p++) {
+                double px = pts[3 * p] - c[0];
+                double py = pts[3 * p + 1] - c[1];
+                double pz = pts[3 * p + 2] - c[2];
+                double dd = px * pole[0] + py * pole[1] + pz * pole[2];
+                pot[p] = s[p * FieldSample.SIZE + FieldSample.U] + 0.5 * w * w * (px * px + py * py + pz * pz - dd * dd);
+                inside[p] = s[p * FieldSample.SIZE + FieldSample.LOCATION] == 1.0;
+            }
+            double[] sorted = pot.clone();
+            Arrays.sort(sorted);
+            double lo = sorted[(int) (0.01 * (sorted.length - 1))];
+            double hi = sorted[(int) (0.99 * (sorted.length - 1))];
+            if (!(hi > lo)) {
+                hi = lo + 1e-30;
+            }
+            java.awt.image.BufferedImage img = new java.awt.image.BufferedImage(LEFT + n + RIGHT, TOP + n + BOTTOM,
+                java.awt.image.BufferedImage.TYPE_INT_RGB);
+            java.awt.Graphics2D g = img.createGraphics();
+            g.setRenderingHint(java.awt.RenderingHints.KEY_TEXT_ANTIALIASING,
+                java.awt.RenderingHints.VALUE_TEXT_ANTIALIAS_ON);
+            g.setColor(java.awt.Color.WHITE);
+            g.fillRect(0, 0, img.getWidth(), img.getHeight());
+            g.setFont(new java.awt.Font(java.awt.Font.SANS_SERIF, java.awt.Font.PLAIN, 12));
+            for (int j = 0; j < n; j++) {
+                for (int i = 0; i < n; i++) {
+                    int p = j * n + i;
+                    int rgb = ramp((pot[p] - lo) / (hi - lo));
+                    if (jacobi != null && pot[p] < -jacobi && ((i + j) % 6 < 3)) {
+                        rgb = darker(rgb); // hatched: forbidden for this Jacobi constant (V < -J)
+                    }
+                    img.setRGB(LEFT + i, TOP + j, rgb);
+                }
+            }
+            // contour lines V = -J of the equilibria (sign changes to the right or below), and the body outline
+            double[] levels = new double[r.points().size()];
+            for (int k = 0; k < levels.length; k++) {
+                levels[k] = r.points().get(k).potential();
+            }
+            for (int j = 0; j < n; j++) {
+                for (int i = 0; i < n; i++) {
+                    int p = j * n + i;
+                    for (double level : levels) {
+                        if ((i + 1 < n && (pot[p] - level) * (pot[p + 1] - level) < 0)
+                            || (j + 1 < n && (pot[p] - level) * (pot[p + n] - level) < 0)) {
+                            img.setRGB(LEFT + i, TOP + j, 0x000000);
+                        }
+                    }
+                    if ((i + 1 < n && inside[p] != inside[p + 1]) || (j + 1 < n && inside[p] != inside[p + n])) {
+                        img.setRGB(LEFT + i, TOP + j, 0xFFFFFF);
+                    }
+                }
+            }
+            g.setColor(java.awt.Color.BLACK);
+            g.drawRect(LEFT - 1, TOP - 1, n + 1, n + 1);
+            // equilibria within 2 % of the extent from the plane
+            double[] nrm = {u[1] * v[2] - u[2] * v[1], u[2] * v[0] - u[0] * v[2], u[0] * v[1] - u[1] * v[0]};
+            int k = 1;
+            for (Point p : r.points()) {
+                double[] x = p.position();
+                double dx = x[0] - c[0];
+                double dy = x[1] - c[1];
+                double dz = x[2] - c[2];
+                double off = dx * nrm[0] + dy * nrm[1] + dz * nrm[2];
+                if (Math.abs(off) <= 0.02 * extent) {
+                    double a = dx * u[0] + dy * u[1] + dz * u[2];
+                    double b = dx * v[0] + dy * v[1] + dz * v[2];
+                    int px = LEFT + (int) Math.round((a + extent) / h);
+                    int py = TOP + (int) Math.round((extent - b) / h);
+                    g.setColor(p.stable() ? new java.awt.Color(0x1B7F3A) : new java.awt.Color(0xC0202A));
+                    g.fillOval(px - 4, py - 4, 9, 9);
+                    g.setColor(java.awt.Color.BLACK);
+                    g.drawOval(px - 4, py - 4, 9, 9);
+                    g.drawString(String.valueOf(k), px + 6, py - 5);
+                }
+                k++;
+            }
+            // axes in metres
+            for (int t = 0; t <= 4; t++) {
+                double val = -extent + t * extent / 2;
+                int px = LEFT + (int) Math.round(t * n / 4.0);
+                int py = TOP + (int) Math.round(t * n / 4.0);
+                g.drawLine(px, TOP + n, px, TOP + n + 5);
+                g.drawString(String.format(Locale.ROOT, "%.0f", val + 0.0), px - 18, TOP + n + 18);
+                g.drawLine(LEFT - 5, py, LEFT, py);
+                g.drawString(String.format(Locale.ROOT, "%.0f", -val + 0.0), 4, py + 4);
+            }
+            g.drawString(uName + " (m, from the centre of mass)", LEFT + n / 2 - 80, TOP + n + 36);
+            g.drawString(vName + " (m)", 4, TOP - 8);
+            wrap(g, "Effective potential V = U + w^2 r_perp^2 / 2 in the " + title + " through the centre of mass. "
+                + "Black: V = -J at the equilibria's Jacobi constants (zero-velocity curves); white: body outline; "
+                + "dots: equilibria (green linearly stable, red unstable), numbered as in equilibria.json"
+                + (jacobi != null ? String.format(Locale.ROOT, "; hatched: forbidden (V < -J) for J = %.6g m^2/s^2",
+                jacobi) : "") + ".", 4, 14, img.getWidth() - 8);
+            // colour bar
+            int bx = LEFT + n + 30;
+            for (int y = 0; y < n; y++) {
+                int rgb = ramp(1 - y / (double) (n - 1));
+                g.setColor(new java.awt.Color(rgb));
+                g.drawLine(bx, TOP + y, bx + 18, TOP + y);
+            }
+            g.setColor(java.awt.Color.BLACK);
+            g.drawRect(bx, TOP, 18, n);
+            for (int t = 0; t <= 4; t++) {
+                double val = hi - t * (hi - lo) / 4;
+                int y = TOP + (int) Math.round(t * (n - 1) / 4.0);
+                g.drawString(String.format(Locale.ROOT, "%.4g", val), bx + 22, y + 4);
+            }
+            g.drawString("V (m^2/s^2)", bx - 4, TOP - 8);
+            wrap(g, CAUTION, 4, TOP + n + 56, img.getWidth() - 8);
+            g.dispose();
+            AtomicFiles.write(file, os -> {
+                if (!javax.imageio.ImageIO.write(img, "png", os)) {
+                    throw new java.io.IOException("no PNG writer available");
+                }
+            });
+            return file;
+        }
+
+        /** Draws {@code text} word-wrapped to {@code width} pixels from (x, y) down. */
+        private static void wrap(java.awt.Graphics2D g, String text, int x, int y, int width) {
+            java.awt.FontMetrics fm = g.getFontMetrics();
+            StringBuilder line = new StringBuilder();
+            int yy = y;
+            for (String word : text.split(" ")) {
+                String next = line.length() == 0 ? word : line + " " + word;
+                if (fm.stringWidth(next) > width && line.length() > 0) {
+                    g.drawString(line.toString(), x, yy);
+                    yy += fm.getHeight();
+                    line = new StringBuilder(word);
+                } else {
+                    line = new StringBuilder(next);
+                }
+            }
+            if (line.length() > 0) {
+                g.drawString(line.toString(), x, yy);
+            }
+        }
+
+        private static int ramp(double t) {
+            double x = Math.max(0, Math.min(1, t)) * (RAMP.length - 1);
+            int i = Math.min(RAMP.length - 2, (int) x);
+            double f = x - i;
+            int a = RAMP[i];
+            int b = RAMP[i + 1];
+            int rr = (int) Math.round(((a >> 16) & 255) * (1 - f) + ((b >> 16) & 255) * f);
+            int gg = (int) Math.round(((a >> 8) & 255) * (1 - f) + ((b >> 8) & 255) * f);
+            int bb = (int) Math.round((a & 255) * (1 - f) + (b & 255) * f);
+            return (rr << 16) | (gg << 8) | bb;
+        }
+
+        private static int darker(int rgb) {
+            int rr = ((rgb >> 16) & 255) / 3;
+            int gg = ((rgb >> 8) & 255) / 3;
+            int bb = (rgb & 255) / 3;
+            return (rr << 16) | (gg << 8) | bb;
+        }
     }
 }

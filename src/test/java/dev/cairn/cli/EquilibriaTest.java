@@ -150,6 +150,20 @@ class EquilibriaTest {
         CliRun ok = CliRun.of("equilibria", box.toString(), "--density", "2000", "--spin-period", "3h", "--json",
             "--grid", "16");
         assertEquals(0, ok.exit(), ok.err());
+        Path out = dir.resolve("maps");
+        CliRun maps = CliRun.of("equilibria", box.toString(), "--density", "2000", "--spin-period", "3h", "--grid",
+            "16", "--out", out.toString(), "--jacobi", "-1e-4", "--map-size", "120");
+        assertEquals(0, maps.exit(), maps.err());
+        for (String f : new String[] {"equilibria.json", "map-equatorial.png", "map-meridian-1.png",
+            "map-meridian-2.png"}) {
+            assertTrue(java.nio.file.Files.size(out.resolve(f)) > 0, f);
+        }
+        java.awt.image.BufferedImage img = javax.imageio.ImageIO.read(out.resolve("map-equatorial.png").toFile());
+        assertTrue(img.getWidth() > 120 && img.getHeight() > 120, "a readable PNG with the map and its margins");
+        CliRun bad = CliRun.of("equilibria", box.toString(), "--density", "2000", "--spin-period", "3h",
+            "--map-size", "5");
+        assertEquals(2, bad.exit());
+        assertTrue(bad.oneLineError(), bad.err());
         assertTrue(ok.out().contains("\"points\"") && ok.out().contains("\"jacobi_m2_s2\"")
             && ok.out().contains("\"eigenvalues\"") && ok.out().contains("\"stable\"")
             && ok.out().contains("\"inside\""), ok.out());
