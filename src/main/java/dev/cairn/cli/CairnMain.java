@@ -24,6 +24,8 @@ import picocli.CommandLine.Command;
         CompareCommand.class,
         TableCommand.class,
         TableMergeCommand.class,
+        HarmonicsCommand.class,
+        EquilibriaCommand.class,
         BenchCommand.class,
         dev.cairn.viewer.ViewCommand.class,
         dev.cairn.viewer.RenderCommand.class,

@@ -18,9 +18,18 @@ import picocli.CommandLine.Option;
  * superposition) or a mascon set of a given size and scheme. Shared by {@code field} and {@code compare}.
  */
 public final class MasconOptions {
-    @Option(names = "--model", paramLabel = "polyhedron|mascon", description = "Field model (default: "
-        + "${DEFAULT-VALUE}).")
+    @Option(names = "--model", paramLabel = "polyhedron|mascon|harmonics", description = "Field model (default: "
+        + "${DEFAULT-VALUE}); harmonics: the spherical-harmonic series of --degree N about the centre of mass "
+        + "(or of --coefficients FILE.json), valid only outside the Brillouin sphere (docs/harmonics.md).")
     String model = "polyhedron";
+
+    @Option(names = "--degree", paramLabel = "N", description = "Degree of --model harmonics (0 to 60; default: "
+        + "that of --coefficients).")
+    Integer degree;
+
+    @Option(names = "--coefficients", paramLabel = "FILE", description = "Coefficient file (JSON of cairn "
+        + "harmonics) for --model harmonics.")
+    java.nio.file.Path coefficients;
 
     @Option(names = "--mascons", paramLabel = "N", description = "Target number of mascons for --model mascon "
         + "(default: ${DEFAULT-VALUE}).")
@@ -131,13 +140,42 @@ public final class MasconOptions {
 
     /** Builds the chosen field model; for mascons, prints the mass-property report to {@code err}. */
     FieldModel build(BodyModel body, int threads, PrintWriter err) {
+        if (model.toLowerCase(Locale.ROOT).equals("harmonics")) {
+            return harmonics(body, degree, coefficients, threads);
+        }
+        if (degree != null || coefficients != null) {
+            throw new InputException("--degree and --coefficients need --model harmonics");
+        }
         return build(body, model, mascons, scheme, moments(scheme, matchInertia, matchFullInertia), threads, err);
+    }
+
+    /**
+     * The spherical-harmonic field: of the coefficient file (truncated to {@code degree} when given), else of the
+     * body to {@code degree} about its centre of mass with the Brillouin radius as reference radius.
+     */
+    static FieldModel harmonics(BodyModel body, Integer degree, java.nio.file.Path file, int threads) {
+        if (degree != null && (degree < 0 || degree > dev.cairn.gravity.HarmonicCoefficients.MAX_DEGREE)) {
+            throw new InputException("--degree must be 0 to " + dev.cairn.gravity.HarmonicCoefficients.MAX_DEGREE
+                + ", got " + degree);
+        }
+        if (file != null) {
+            dev.cairn.gravity.HarmonicCoefficients h = dev.cairn.harmonics.HarmonicsFile.read(file);
+            if (degree != null && degree > h.degree()) {
+                throw new InputException("--degree " + degree + " is above the degree " + h.degree() + " of " + file);
+            }
+            return new dev.cairn.gravity.HarmonicField(degree == null ? h : h.truncated(degree));
+        }
+        if (degree == null) {
+            throw new InputException("--model harmonics needs --degree N or --coefficients FILE.json");
+        }
+        return new dev.cairn.gravity.HarmonicField(HarmonicsCommand.compute(body, degree,
+            body.massProperties().centerOfMass(), null, threads).coefficients());
     }
 
     /** As {@link #build(BodyModel, int, PrintWriter)} for a job of about {@code points} field points. */
     FieldModel build(BodyModel body, long points, int threads, PrintWriter err) {
-        return model.toLowerCase(Locale.ROOT).equals("polyhedron") ? body.fieldModel(points)
-            : build(body, threads, err);
+        return model.toLowerCase(Locale.ROOT).equals("polyhedron") && degree == null && coefficients == null
+            ? body.fieldModel(points) : build(body, threads, err);
     }
 
     static FieldModel build(BodyModel body, String model, int mascons, String scheme, MasconMatch.Moments moments,
@@ -155,12 +193,31 @@ public final class MasconOptions {
                 err.flush();
                 return new MasconField(set);
             default:
-                throw new InputException("--model: unknown field model '" + model + "' (use polyhedron or mascon)");
+                String lower = model.toLowerCase(Locale.ROOT);
+                if (lower.startsWith("harmonics:")) { // harmonics:N or harmonics:FILE.json (compare's --test, --reference)
+                    String arg = model.substring("harmonics:".length());
+                    if (arg.matches("[0-9]{1,4}")) {
+                        return harmonics(body, Integer.parseInt(arg), null, threads);
+                    }
+                    return harmonics(body, null, java.nio.file.Path.of(arg), threads);
+                }
+                if (lower.equals("harmonics")) {
+                    throw new InputException("--model harmonics: give the degree, e.g. harmonics:20, or a "
+                        + "coefficient file, harmonics:FILE.json");
+                }
+                throw new InputException("--model: unknown field model '" + model + "' (use polyhedron, mascon or "
+                    + "harmonics:N)");
         }
     }
 
     /** Warns on {@code err} when evaluations came closer to a mascon than its local spacing. */
     static void warnTooClose(FieldModel field, int points, PrintWriter err) {
+        if (field instanceof dev.cairn.gravity.HarmonicField h && h.insideCount() > 0) {
+            err.println(String.format(Locale.ROOT, "cairn: warning: %d of %d point(s) lie inside the Brillouin "
+                + "sphere (radius %.6g m) of the spherical-harmonic model, where the series diverges: its values "
+                + "there are not valid", h.insideCount(), points, h.convergenceRadius()));
+            err.flush();
+        }
         if (field instanceof MasconField) {
             long close = ((MasconField) field).tooCloseCount();
             if (close > 0) {

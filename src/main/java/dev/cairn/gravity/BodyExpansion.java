@@ -142,6 +142,60 @@ public final class BodyExpansion {
         prepare(vRe, vIm);
     }
 
+    /** Facets per block of {@link #volumeMoments}: blocks are summed in a fixed order, whatever the thread count. */
+    static final int MOMENT_BLOCK = 512;
+
+    /**
+     * Dimensionless volume moments ∫_V conj(R_n^m((y − c)/a)) dV / a³ of the closed outward polyhedron {@code mesh}
+     * about the origin c = ({@code ox, oy, oz}) with the length scale {@code a} (metres), degree ≤ {@code degree}
+     * (0 to 60), by the cone formula of the constructor and the exact triangle rule of that degree. Parallel over
+     * blocks of {@link #MOMENT_BLOCK} facets whose partial sums are added in block order, so the result does not
+     * depend on {@code threads}. Returns {real parts, imaginary parts} at {@link SolidHarmonics#index}(n, m).
+     */
+    public static double[][] volumeMoments(TriangleMesh mesh, double ox, double oy, double oz, double a, int degree,
+                                           int threads) {
+        if (degree < 0 || degree > 60) {
+            throw new IllegalArgumentException("moment degree " + degree + " outside 0..60");
+        }
+        if (!(a > 0) || !Double.isFinite(a)) {
+            throw new IllegalArgumentException("moment scale must be positive and finite, got " + a);
+        }
+        double[] xyz = mesh.xyz();
+        int[] tri = mesh.tri();
+        int nf = mesh.facetCount();
+        int p = degree;
+        int size = SolidHarmonics.size(p);
+        TriangleQuadrature rule = new TriangleQuadrature(p);
+        int blocks = (nf + MOMENT_BLOCK - 1) / MOMENT_BLOCK;
+        double[] partRe = new double[blocks * size];
+        double[] partIm = new double[blocks * size];
+        ParallelChunks.run(blocks, Math.max(1, threads), () -> new double[][] {new double[size], new double[size]},
+            (s, from, to) -> {
+                for (int bk = from; bk < to; bk++) {
+                    int f1 = Math.min(nf, (bk + 1) * MOMENT_BLOCK);
+                    for (int f = bk * MOMENT_BLOCK; f < f1; f++) {
+                        addConeMoments(xyz, tri, f, ox, oy, oz, a, rule, p, s[0], s[1], partRe, partIm, bk * size);
+                    }
+                }
+            }, ProgressListener.NONE);
+        double[] vRe = new double[size];
+        double[] vIm = new double[size];
+        for (int bk = 0; bk < blocks; bk++) {
+            for (int k = 0; k < size; k++) {
+                vRe[k] += partRe[bk * size + k];
+                vIm[k] += partIm[bk * size + k];
+            }
+        }
+        for (int n = 0; n <= p; n++) {
+            for (int m = 0; m <= n; m++) {
+                int k = SolidHarmonics.index(n, m);
+                vRe[k] /= n + 3;
+                vIm[k] /= n + 3;
+            }
+        }
+        return new double[][] {vRe, vIm};
+    }
+
     /**
      * An expansion from volume moments already known: {@code (vRe, vIm)} = ∫_V conj(R_n^m((y − c)/a)) dV / a³
      * (dimensionless, degree ≤ {@code degree}), used at and beyond {@code switchRadius} from c.
