@@ -23,6 +23,8 @@ import picocli.CommandLine.Command;
         CompareCommand.class,
         TableCommand.class,
         TableMergeCommand.class,
+        TrajectoryCommand.class,
+        DeployCommand.class,
         BenchCommand.class,
         dev.cairn.viewer.ViewCommand.class,
         dev.cairn.viewer.RenderCommand.class,
