@@ -132,6 +132,12 @@ public final class TrajectoryCommand implements Callable<Integer> {
         spinOptions.periodSeconds();
         spinOptions.axis();
         List<double[]> initial = readStates(states);
+        double bytes = initial.size() * (dur / stepS + 2) * Trajectory.COLUMNS * 8.0;
+        if (bytes > 0.5 * Runtime.getRuntime().maxMemory()) {
+            throw new InputException("--step: " + initial.size() + " trajectories of " + (long) (dur / stepS + 1)
+                + " rows need about " + (long) (bytes / 1e6) + " MB, more than half the memory available (raise "
+                + "--step or set CAIRN_JAVA_OPTS=-Xmx...)");
+        }
         BodyModel body = model.load(spinOptions);
         PrintWriter err = spec.commandLine().getErr();
         for (String w : body.warnings()) {
