@@ -26,6 +26,8 @@ import picocli.CommandLine.Command;
         TableMergeCommand.class,
         HarmonicsCommand.class,
         EquilibriaCommand.class,
+        TrajectoryCommand.class,
+        DeployCommand.class,
         BenchCommand.class,
         dev.cairn.viewer.ViewCommand.class,
         dev.cairn.viewer.RenderCommand.class,

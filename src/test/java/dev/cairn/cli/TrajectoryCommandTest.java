@@ -1,0 +1,135 @@
+package dev.cairn.cli;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.cairn.TestShapes;
+import dev.cairn.mesh.Shapes;
+import java.awt.image.BufferedImage;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import javax.imageio.ImageIO;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * {@code cairn trajectory} end to end on a small spinning icosphere: files read back with plain parsers (CSV header,
+ * JSON keys, legacy VTK PolyData counts as in the VTK file-format specification, PNG through ImageIO), identical
+ * results for 1 and 2 threads, and one-line errors for bad input.
+ */
+class TrajectoryCommandTest {
+    @TempDir
+    static Path dir;
+    static Path obj;
+    static Path states;
+    static CliRun run;
+
+    @BeforeAll
+    static void once() throws Exception {
+        obj = TestShapes.write(dir.resolve("ball.obj"), TestShapes.objText(Shapes.icosphere(2, 100), 1.0));
+        // Row 1: an orbit at 300 m (body frame, retrograde-corrected speed); row 2: released above the pole, falls.
+        states = TestShapes.write(dir.resolve("states.csv"), "x_m,y_m,z_m,vx_m_s,vy_m_s,vz_m_s\n"
+            + "300,0,0,0,0.02,0\n# a comment\n\n0,0,180,0.01,0,0\n");
+        run = CliRun.of("trajectory", obj.toString(), "--density", "2000", "--spin-period", "6h", "--states",
+            states.toString(), "--duration", "3h", "--step", "5min", "--frame", "body", "--altitudes", "50",
+            "--out", dir.resolve("out1").toString(), "--threads", "1");
+        assertEquals(0, run.exit(), run.err());
+    }
+
+    @Test
+    void writesCsvJsonPngAndVtk() throws Exception {
+        Path out = dir.resolve("out1");
+        List<String> csv = Files.readAllLines(out.resolve("trajectory-0001.csv"));
+        assertEquals("t_s,x_m,y_m,z_m,vx_m_s,vy_m_s,vz_m_s,jacobi_m2_s2", csv.get(0));
+        assertEquals("0.0", csv.get(1).split(",")[0]);
+        assertEquals(8, csv.get(1).split(",").length);
+        JsonNode j = new ObjectMapper().readTree(out.resolve("events.json").toFile());
+        assertTrue(j.get("caution").asText().contains("flight-dynamics"));
+        assertTrue(j.get("field").get("model").asText().contains("polyhedron"));
+        assertTrue(j.get("field").has("tolerance"));
+        assertEquals("body", j.get("integrator").get("frame").asText());
+        JsonNode t2 = j.get("trajectories").get(1);
+        assertEquals(5, t2.get("states_line").asInt(), "line numbers count comments and blank lines");
+        assertEquals("impact", t2.get("outcome").asText());
+        JsonNode last = t2.get("events").get(t2.get("events").size() - 1);
+        assertEquals("impact", last.get("kind").asText());
+        assertTrue(last.get("facet").asInt() >= 0);
+        assertTrue(last.get("incidence_deg").asDouble() >= 0 && last.get("incidence_deg").asDouble() <= 90);
+        // The fall from 180 m crosses the 50 m altitude threshold downward before the impact.
+        assertEquals("altitude", t2.get("events").get(0).get("kind").asText());
+        assertEquals("down", t2.get("events").get(0).get("direction").asText());
+        int rows0 = csv.size() - 1;
+        int rows1 = Files.readAllLines(out.resolve("trajectory-0002.csv")).size() - 1;
+        List<String> vtk = Files.readAllLines(out.resolve("trajectories.vtk"));
+        assertEquals("# vtk DataFile Version 3.0", vtk.get(0));
+        assertEquals("DATASET POLYDATA", vtk.get(3));
+        assertEquals("POINTS " + (rows0 + rows1) + " double", vtk.get(4));
+        assertTrue(vtk.contains("LINES 2 " + (rows0 + rows1 + 2)));
+        BufferedImage img = ImageIO.read(out.resolve("paths.png").toFile());
+        assertEquals(3 * TrajectoryCommand.PANEL + 40, img.getWidth());
+        assertTrue(run.out().contains("Caution"));
+        assertTrue(run.out().contains("field evaluations per trajectory"));
+    }
+
+    @Test
+    void identicalForOneAndTwoThreadsAndInertialFrameAddsColumns() throws Exception {
+        CliRun two = CliRun.of("trajectory", obj.toString(), "--density", "2000", "--spin-period", "6h", "--states",
+            states.toString(), "--duration", "3h", "--step", "5min", "--altitudes", "50", "--out",
+            dir.resolve("out2").toString(), "--threads", "2");
+        assertEquals(0, two.exit(), two.err());
+        for (String f : new String[] {"trajectory-0001.csv", "trajectory-0002.csv", "trajectories.vtk"}) {
+            assertArrayEquals(Files.readAllBytes(dir.resolve("out1").resolve(f)),
+                Files.readAllBytes(dir.resolve("out2").resolve(f)), f);
+        }
+        CliRun in = CliRun.of("trajectory", obj.toString(), "--density", "2000", "--states", states.toString(),
+            "--duration", "600", "--frame", "inertial", "--out", dir.resolve("out3").toString());
+        assertEquals(0, in.exit(), in.err());
+        String header = Files.readAllLines(dir.resolve("out3").resolve("trajectory-0001.csv")).get(0);
+        assertEquals("t_s,x_m,y_m,z_m,vx_m_s,vy_m_s,vz_m_s,jacobi_m2_s2,xi_m,yi_m,zi_m,vxi_m_s,vyi_m_s,vzi_m_s", header);
+    }
+
+    private static void bad(String fragment, String statesText, String... extra) {
+        Path s = TestShapes.write(dir.resolve("bad-" + Math.abs(fragment.hashCode()) + ".csv"), statesText);
+        String[] base = {"trajectory", obj.toString(), "--density", "2000", "--states", s.toString(), "--out",
+            dir.resolve("bad-out").toString()};
+        boolean hasDuration = false;
+        for (String x : extra) {
+            hasDuration |= x.equals("--duration");
+        }
+        String[] args = new String[base.length + extra.length + (hasDuration ? 0 : 2)];
+        System.arraycopy(base, 0, args, 0, base.length);
+        System.arraycopy(extra, 0, args, base.length, extra.length);
+        if (!hasDuration) {
+            args[args.length - 2] = "--duration";
+            args[args.length - 1] = "1h";
+        }
+        CliRun r = CliRun.of(args);
+        assertEquals(2, r.exit(), r.err());
+        assertTrue(r.oneLineError(), r.err());
+        assertTrue(r.err().contains(fragment), r.err());
+        assertFalse(Files.exists(dir.resolve("bad-out").resolve("events.json")), "nothing written on bad input");
+    }
+
+    @Test
+    void badInputGivesOneLineErrors() {
+        String ok = "300,0,0,0,0.02,0\n";
+        bad("--duration: must be positive", ok, "--duration", "-5");
+        bad("--duration: must be positive", ok, "--duration", "0");
+        bad("unknown unit suffix 'y'", ok, "--duration", "5y");
+        bad("--step: unknown unit suffix", ok, "--step", "3weeks");
+        bad("--frame: unknown frame 'galactic'", ok, "--frame", "galactic");
+        bad(":1: initial position is inside the body", "10,0,0,0,0,0\n");
+        bad(":2: value 3 is not finite", "300,0,0,0,0.02,0\n300,0,NaN,0,0,0\n");
+        bad(":1: expected 6 values", "300,0,0,0,0.02\n");
+        bad(":1: value 2 'abc' is not a number", "300,abc,0,0,0,0\n");
+        bad("no initial states", "x_m,y_m,z_m,vx_m_s,vy_m_s,vz_m_s\n");
+        bad("--srp: expected 3", ok, "--srp", "1e-9,0");
+        bad("--threads: must be between 1", ok, "--threads", "0");
+    }
+}
