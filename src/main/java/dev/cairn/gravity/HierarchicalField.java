@@ -94,8 +94,6 @@ public final class HierarchicalField implements FieldModel {
     private final PolyhedronField exact;
     private final BodyExpansion body;
     private final int facetCount;
-    static final LongAdder DBG_FAR = new LongAdder();
-    static final LongAdder DBG_NEAR = new LongAdder();
     private final LongAdder fallbacks = new LongAdder();
     private final LongAdder evaluations = new LongAdder();
 
