@@ -60,6 +60,23 @@ public final class BenchCommand implements Callable<Integer> {
     @Option(names = "--survey-largest", description = "With --fast-field: also time a whole survey of the largest "
         + "body at tolerance 1e-9.")
     boolean surveyLargest;
+    @Option(names = "--harmonics", description = "Also time spherical-harmonic coefficients (degrees "
+        + "--harmonics-degrees) on this body and on a generated lumpy body (--harmonics-level), beside the direct "
+        + "baseline.")
+    boolean harmonics;
+
+    @Option(names = "--harmonics-degrees", split = ",", paramLabel = "N", description = "With --harmonics: degrees "
+        + "(default: 10,20,50).")
+    int[] harmonicsDegrees = {10, 20, 50};
+
+    @Option(names = "--harmonics-level", paramLabel = "L", description = "With --harmonics: icosphere level of the "
+        + "large lumpy body, 0 (none) to 8 (1.3 M facets; default ${DEFAULT-VALUE}).")
+    int harmonicsLevel = 8;
+
+    @Option(names = "--harmonics-baseline", description = "With --harmonics: also run the (slow) direct baseline on "
+        + "the large body.")
+    boolean harmonicsBaseline;
+
     @Option(names = "--skip-baseline", description = "Do not time the straightforward baseline kernel beside the "
         + "product kernel (timed by default on the same body and points).")
     boolean skipBaseline;
@@ -131,6 +148,19 @@ public final class BenchCommand implements Callable<Integer> {
         }
         if (mascons > 0) {
             benchMascons(out, body, xyz, all);
+        }
+        if (harmonics) {
+            if (harmonicsLevel < 0 || harmonicsLevel > 8) {
+                throw new InputException("--harmonics-level: 0 to 8, got " + harmonicsLevel);
+            }
+            for (int n : harmonicsDegrees) {
+                if (n < 0 || n > dev.cairn.gravity.HarmonicCoefficients.MAX_DEGREE) {
+                    throw new InputException("--harmonics-degrees: 0 to "
+                        + dev.cairn.gravity.HarmonicCoefficients.MAX_DEGREE + ", got " + n);
+                }
+            }
+            HarmonicsBench.run(out, body.mesh(), body.name(), body.density(), harmonicsDegrees, harmonicsLevel,
+                harmonicsBaseline, all);
         }
         if (fastField) {
             for (int l : lumpyLevels) {

@@ -38,6 +38,12 @@ public final class HarmonicCoefficients {
     private final int degree;
     private final double[][] c;
     private final double[][] s;
+    private final double truncationBound;
+
+    /** Meshes with at least this many facets take the clustered moments ({@link ClusteredMoments}). */
+    public static final int CLUSTERED_MIN_FACETS = 4096;
+    /** Per-group truncation target of the clustered moments on normalised coefficients. */
+    public static final double CLUSTERED_EPSILON = 1e-16;
 
     /**
      * @param gm              GM, m^3/s^2 (positive)
@@ -49,6 +55,19 @@ public final class HarmonicCoefficients {
      */
     public HarmonicCoefficients(double gm, double referenceRadius, double brillouinRadius, double[] origin,
                                 double[][] c, double[][] s) {
+        this(gm, referenceRadius, brillouinRadius, origin, c, s, 0);
+    }
+
+    /**
+     * As above, with {@code truncationBound}: an upper bound on the truncation error of every C̄, S̄ from the way
+     * they were computed (0: exact up to round-off; {@link ClusteredMoments#bound()}).
+     */
+    public HarmonicCoefficients(double gm, double referenceRadius, double brillouinRadius, double[] origin,
+                                double[][] c, double[][] s, double truncationBound) {
+        if (!(truncationBound >= 0) || !Double.isFinite(truncationBound)) {
+            throw new IllegalArgumentException("truncation bound must be finite and non-negative");
+        }
+        this.truncationBound = truncationBound;
         if (!(gm > 0) || !Double.isFinite(gm)) {
             throw new IllegalArgumentException("GM must be positive and finite, got " + gm);
         }
@@ -85,6 +104,24 @@ public final class HarmonicCoefficients {
      */
     public static HarmonicCoefficients ofPolyhedra(List<TriangleMesh> meshes, double[] densities, double[] origin,
                                                    double referenceRadius, int degree, int threads) {
+        return ofPolyhedra(meshes, densities, origin, referenceRadius, degree, threads, CLUSTERED_MIN_FACETS,
+            CLUSTERED_EPSILON);
+    }
+
+    /** The baseline: the direct exact triangle rule over every facet, whatever the facet count (benchmarks). */
+    public static HarmonicCoefficients ofPolyhedraDirect(List<TriangleMesh> meshes, double[] densities,
+                                                         double[] origin, double referenceRadius, int degree,
+                                                         int threads) {
+        return ofPolyhedra(meshes, densities, origin, referenceRadius, degree, threads, Integer.MAX_VALUE, 1);
+    }
+
+    /**
+     * As {@link #ofPolyhedra(List, double[], double[], double, int, int)}, with the facet count from which the
+     * clustered moments are used ({@code Integer.MAX_VALUE}: never) and their per-group target (tests, benchmarks).
+     */
+    static HarmonicCoefficients ofPolyhedra(List<TriangleMesh> meshes, double[] densities, double[] origin,
+                                            double referenceRadius, int degree, int threads, int clusteredMinFacets,
+                                            double epsilon) {
         if (degree < 0 || degree > MAX_DEGREE) {
             throw new IllegalArgumentException("degree " + degree + " outside 0.." + MAX_DEGREE);
         }
@@ -95,12 +132,26 @@ public final class HarmonicCoefficients {
         int size = SolidHarmonics.size(degree);
         double[] re = new double[size];
         double[] im = new double[size];
+        double boundMass = 0; // Σ |ρ_i| V_i · bound_i (scaled), divided by the total below
         for (int i = 0; i < meshes.size(); i++) {
-            double[][] v = BodyExpansion.volumeMoments(meshes.get(i), origin[0], origin[1], origin[2], a, degree,
-                threads);
+            TriangleMesh mesh = meshes.get(i);
+            double[] vr;
+            double[] vi;
+            if (mesh.facetCount() >= clusteredMinFacets) {
+                ClusteredMoments cm = ClusteredMoments.compute(mesh, origin[0], origin[1], origin[2], a, degree,
+                    a / referenceRadius, epsilon, threads);
+                vr = cm.re();
+                vi = cm.im();
+                boundMass += Math.abs(densities[i] * vr[0]) * cm.bound();
+            } else {
+                double[][] v = BodyExpansion.volumeMoments(mesh, origin[0], origin[1], origin[2], a, degree,
+                    threads);
+                vr = v[0];
+                vi = v[1];
+            }
             for (int k = 0; k < size; k++) {
-                re[k] += densities[i] * v[0][k];
-                im[k] += densities[i] * v[1][k];
+                re[k] += densities[i] * vr[k];
+                im[k] += densities[i] * vi[k];
             }
         }
         // re, im: Σ ρ ∫ conj R((y − c)/a) dV / a³, so μ_n^m = a^{n+3} (re + i im) and M = a³ re_0^0.
@@ -128,7 +179,7 @@ public final class HarmonicCoefficients {
             pow *= ratio;
         }
         double gm = Constants.G * massScaled * a * a * a;
-        return new HarmonicCoefficients(gm, referenceRadius, a, origin, c, s);
+        return new HarmonicCoefficients(gm, referenceRadius, a, origin, c, s, boundMass / massScaled);
     }
 
     /** k! for k = 0..kmax (kmax ≤ 170) as doubles. */
@@ -166,7 +217,16 @@ public final class HarmonicCoefficients {
             throw new IllegalArgumentException("degree " + n + " outside 0.." + degree);
         }
         return new HarmonicCoefficients(gm, referenceRadius, brillouinRadius, origin,
-            java.util.Arrays.copyOf(c, n + 1), java.util.Arrays.copyOf(s, n + 1));
+            java.util.Arrays.copyOf(c, n + 1), java.util.Arrays.copyOf(s, n + 1), truncationBound);
+    }
+
+    /**
+     * Upper bound on the truncation error of every C̄_nm, S̄_nm from the method (0 for the direct exact rule; for
+     * large meshes the bound of {@link ClusteredMoments}); round-off comes on top (about 1e-16 times the square
+     * root of the facet count).
+     */
+    public double truncationBound() {
+        return truncationBound;
     }
 
     public double gm() {
