@@ -187,6 +187,9 @@ public final class HarmonicsCommand implements Callable<Integer> {
         out.println("Normalisation: 4pi full normalisation, no Condon-Shortley phase");
         out.printf(Locale.ROOT, "Degree and order: %d (%d coefficient pairs), computed in %.3f s on %d facets, %d "
             + "thread(s)%n", h.degree(), SolidHarmonics.size(h.degree()), seconds, facets, threads);
+        out.printf(Locale.ROOT, "Method: exact triangle rule on meshes under %d facets, clustered facet moments "
+            + "above (docs/harmonics.md); bound on each coefficient's truncation error %.1e (rounding excluded)%n",
+            HarmonicCoefficients.CLUSTERED_MIN_FACETS, h.truncationBound());
         if (h.degree() >= 1) {
             out.printf(Locale.ROOT, "  Cbar10 = %+.12e  Cbar11 = %+.12e  Sbar11 = %+.12e%n", h.c(1, 0), h.c(1, 1),
                 h.s(1, 1));

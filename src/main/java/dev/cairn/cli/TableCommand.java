@@ -65,6 +65,9 @@ public final class TableCommand implements Callable<Integer> {
     @Mixin
     SpinOptions spinOptions = new SpinOptions();
 
+    @Mixin
+    MasconOptions fieldChoice = new MasconOptions();
+
     @Option(names = "--grid", paramLabel = "box|sphere|points", description = "Grid kind (required except with --bench).")
     String gridKind;
 
@@ -192,7 +195,7 @@ public final class TableCommand implements Callable<Integer> {
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
         }
-        FieldModel field = body.fieldModel();
+        FieldModel field = fieldChoice.build(body, Long.MAX_VALUE, threads, err);
         if (bench) {
             return bench(body, field, outw);
         }
@@ -328,7 +331,7 @@ public final class TableCommand implements Callable<Integer> {
 
     private int build(BodyModel body, FieldModel field, Grid grid, TableLayout layout, String fmt, int shardIndex,
                       int shardCount, PrintWriter err, PrintWriter outw) {
-        Map<String, Object> info = modelInfo(body);
+        Map<String, Object> info = modelInfo(body, field);
         FieldCheck check = fieldCheck(field, grid, threads);
         if (check.samples() > 0) {
             info.put("field_accuracy", check.json());
@@ -342,9 +345,13 @@ public final class TableCommand implements Callable<Integer> {
         java.util.concurrent.atomic.AtomicInteger chunks = new java.util.concurrent.atomic.AtomicInteger();
         if (outcome == null) {
             try (ProgressBar bar = new ProgressBar(shard != null ? "table " + shard : "table")) {
+                if (field instanceof dev.cairn.gravity.HarmonicField h) {
+                    h.resetInsideCount();
+                }
                 outcome = TableBuilder.build(req, bar,
                     () -> stopAfterChunks > 0 && chunks.incrementAndGet() >= stopAfterChunks, now());
             }
+            MasconOptions.warnTooClose(field, (int) Math.min(Integer.MAX_VALUE, grid.nodeCount()), err);
         }
         double secs = (System.nanoTime() - t0) / 1e9;
         if (!outcome.complete()) {
@@ -543,7 +550,7 @@ public final class TableCommand implements Callable<Integer> {
     }
 
     /** Model identity for the sidecar. */
-    static Map<String, Object> modelInfo(BodyModel body) {
+    static Map<String, Object> modelInfo(BodyModel body, FieldModel field) {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("file", body.source().toString());
         m.put("sha256", TableFiles.sha256(body.source()));
@@ -557,7 +564,7 @@ public final class TableCommand implements Callable<Integer> {
         m.put("length_unit_of_file", body.lengthUnit());
         m.put("density_kg_m3", body.density());
         m.put("gm_m3_s2", body.gm());
-        m.put("field", body.fieldModel().describe());
+        m.put("field", field.describe());
         return m;
     }
 

@@ -19,7 +19,9 @@ import java.util.Map;
 /**
  * Coefficient files. JSON keys: {@code format}, {@code model}, {@code model_sha256}, {@code gm_m3_s2},
  * {@code reference_radius_m}, {@code brillouin_radius_m}, {@code degree}, {@code origin}, {@code origin_m},
- * {@code frame}, {@code normalization}, {@code conventions}, {@code caution}, and {@code c}, {@code s} as arrays
+ * {@code frame}, {@code normalization}, {@code truncation_bound} (a rigorous upper bound on the absolute error
+ * of every normalised coefficient from the method's series truncation, rounding excluded; 0 for the exact rule),
+ * {@code conventions}, {@code caution}, and {@code c}, {@code s} as arrays
  * indexed {@code [n][m]}, m ≤ n. CSV: the same metadata as {@code #} lines, then {@code n,m,c,s} rows.
  */
 public final class HarmonicsFile {
@@ -61,6 +63,7 @@ public final class HarmonicsFile {
         j.put("origin_m", h.origin());
         j.put("frame", FRAME);
         j.put("normalization", NORMALIZATION);
+        j.put("truncation_bound", h.truncationBound());
         j.put("conventions", CONVENTIONS);
         j.put("caution", CAUTION);
         return j;
@@ -179,7 +182,14 @@ public final class HarmonicsFile {
         if (Math.abs(c[0][0] - 1) > 1e-9) {
             throw InputException.at(f, 0, "key 'c': c[0][0] must be 1 (GM carries the mass), got " + c[0][0]);
         }
-        return new HarmonicCoefficients(gm, ref, rb, origin, c, s);
+        double bound = 0;
+        if (root.has("truncation_bound") && !root.get("truncation_bound").isNull()) {
+            bound = number(root, "truncation_bound", f);
+            if (!(bound >= 0)) {
+                throw InputException.at(f, 0, "key 'truncation_bound': must be 0 or more, got " + bound);
+            }
+        }
+        return new HarmonicCoefficients(gm, ref, rb, origin, c, s, bound);
     }
 
     private static double number(JsonNode root, String key, String f) {

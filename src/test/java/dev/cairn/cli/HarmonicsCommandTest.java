@@ -121,6 +121,41 @@ class HarmonicsCommandTest {
     }
 
     /**
+     * {@code table --model harmonics}: a point-grid table of the series holds, node for node, the values
+     * {@code field --model harmonics} writes for the same points (same model, so bit-identical up to the decimal
+     * text), names the model in its sidecar, and counts the node inside the Brillouin sphere in one warning line
+     * (shared references §5: the series diverges there).
+     */
+    @Test
+    void tableOfTheHarmonicModelMatchesTheFieldCommand() throws Exception {
+        Path box = box();
+        Path points = dir.resolve("p.csv");
+        Files.writeString(points, "x,y,z\n5,0.5,-1\n-3,2,4\n1.3,0.3,0.5\n");
+        Path table = dir.resolve("t.csv");
+        CliRun t = CliRun.of("table", box.toString(), "--density", "2000", "--grid", "points", "--points",
+            points.toString(), "--model", "harmonics", "--degree", "8", "--out", table.toString());
+        assertEquals(0, t.exit(), t.err());
+        assertTrue(t.err().contains("1 of 3 point(s) lie inside the Brillouin sphere"), t.err());
+        CliRun f = CliRun.of("field", box.toString(), "--density", "2000", "--points", points.toString(), "--model",
+            "harmonics", "--degree", "8");
+        assertEquals(0, f.exit(), f.err());
+        List<String> tableRows = Files.readAllLines(table).stream().filter(l -> l.matches("-?[0-9].*")).toList();
+        List<String> fieldRows = f.out().lines().filter(l -> l.matches("-?[0-9].*")).toList();
+        assertEquals(3, tableRows.size());
+        assertEquals(3, fieldRows.size());
+        for (int i = 0; i < 3; i++) {
+            String[] a = tableRows.get(i).split(",");
+            String[] b = fieldRows.get(i).split(",");
+            for (int c = 0; c < 7; c++) { // x, y, z, U, ax, ay, az
+                assertEquals(Double.parseDouble(b[c]), Double.parseDouble(a[c]), 0.0, "row " + i + " column " + c);
+            }
+        }
+        JsonNode side = new ObjectMapper().readTree(dir.resolve("t.csv.json").toFile());
+        assertTrue(side.get("model").get("field").asText().contains("spherical harmonics to degree 8"),
+            side.toString());
+    }
+
+    /**
      * Region body (outer box and a denser inner box offset along x) by superposition: degree 2 against the closed
      * forms C20 = (A+B−2C)/(2MR²), C22 = (B−A)/(4MR²) (shared references §3, "any body") with the composite inertia
      * from the handbook box inertia and the parallel-axis theorem (references §4); products of inertia vanish by
