@@ -3,7 +3,7 @@ package dev.cairn.cli;
 import dev.cairn.gravity.BatchEvaluation;
 import dev.cairn.gravity.HierarchicalField;
 import dev.cairn.gravity.PolyhedronField;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.InputException;
 import dev.cairn.util.ParallelChunks;
 import dev.cairn.util.ProgressListener;
@@ -104,8 +104,8 @@ public final class BenchCommand implements Callable<Integer> {
         dev.cairn.io.MemoryBudget.require(200.0 * points, "--points " + points);
         BodyModel body = model.load(null);
         if (!body.hasDensity()) {
-            body = dev.cairn.io.ModelLoader.load(model.modelPath(),
-                new dev.cairn.io.ModelRequest(model.units, 2000.0, null, null, null, null));
+            body = dev.cairn.body.ModelLoader.load(model.modelPath(),
+                new dev.cairn.body.ModelRequest(model.units, 2000.0, null, null, null, null));
         }
         PolyhedronField field = body.polyhedronField();
         PrintWriter out = spec.commandLine().getOut();

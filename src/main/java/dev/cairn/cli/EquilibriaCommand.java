@@ -7,7 +7,7 @@ import dev.cairn.gravity.FieldEvaluator;
 import dev.cairn.gravity.FieldModel;
 import dev.cairn.gravity.FieldSample;
 import dev.cairn.io.AtomicFiles;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.InputException;
 import dev.cairn.mascon.SurfaceQuery;
 import dev.cairn.mass.MassProperties;

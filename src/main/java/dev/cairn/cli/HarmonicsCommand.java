@@ -3,7 +3,7 @@ package dev.cairn.cli;
 import dev.cairn.gravity.HarmonicCoefficients;
 import dev.cairn.gravity.SolidHarmonics;
 import dev.cairn.harmonics.HarmonicsFile;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.InputException;
 import dev.cairn.mesh.TriangleMesh;
 import dev.cairn.regions.RegionBody;

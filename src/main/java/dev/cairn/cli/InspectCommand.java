@@ -2,7 +2,7 @@ package dev.cairn.cli;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.mass.MassProperties;
 import dev.cairn.mesh.MeshReport;
 import java.io.PrintWriter;

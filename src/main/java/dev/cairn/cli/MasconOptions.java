@@ -1,7 +1,7 @@
 package dev.cairn.cli;
 
 import dev.cairn.gravity.FieldModel;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.InputException;
 import dev.cairn.mascon.DensityModel;
 import dev.cairn.mascon.MasconField;

@@ -1,9 +1,9 @@
 package dev.cairn.cli;
 
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.InputException;
-import dev.cairn.io.ModelLoader;
-import dev.cairn.io.ModelRequest;
+import dev.cairn.body.ModelLoader;
+import dev.cairn.body.ModelRequest;
 import java.nio.file.Path;
 import java.nio.file.Paths;
 import picocli.CommandLine.ArgGroup;

@@ -1,6 +1,6 @@
 package dev.cairn.cli;
 
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.InputException;
 import dev.cairn.surface.HoverPoint;
 import dev.cairn.surface.LandingSite;

@@ -2,13 +2,13 @@ package dev.cairn.cli;
 
 import dev.cairn.gravity.FieldCheck;
 import dev.cairn.gravity.FieldModel;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.AtomicFiles;
 import dev.cairn.io.InputException;
 import dev.cairn.io.MemoryBudget;
 import dev.cairn.io.Numbers;
 import dev.cairn.io.OutputLock;
-import dev.cairn.io.ModelSidecar;
+import dev.cairn.body.ModelSidecar;
 import dev.cairn.io.PointsCsv;
 import dev.cairn.tables.AccuracyCheck;
 import dev.cairn.tables.BoxGrid;

@@ -1,13 +1,13 @@
 package dev.cairn.cli;
 
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.AtomicFiles;
 import dev.cairn.io.InputException;
 import dev.cairn.io.OutputLock;
 import dev.cairn.io.RunInputs;
 import dev.cairn.io.StrictJson;
-import dev.cairn.io.ModelLoader;
-import dev.cairn.io.ModelRequest;
+import dev.cairn.body.ModelLoader;
+import dev.cairn.body.ModelRequest;
 import dev.cairn.tables.AccuracyCheck;
 import dev.cairn.tables.TableBuilder;
 import dev.cairn.tables.TableFiles;

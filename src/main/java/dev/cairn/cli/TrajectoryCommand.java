@@ -5,7 +5,7 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import dev.cairn.gravity.FieldCheck;
 import dev.cairn.gravity.FieldModel;
 import dev.cairn.io.AtomicFiles;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.io.InputException;
 import dev.cairn.mesh.TriangleMesh;
 import dev.cairn.motion.Frame;

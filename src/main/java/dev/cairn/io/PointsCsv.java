@@ -18,7 +18,7 @@ public final class PointsCsv {
 
     /** Returns the points as {@code 3n} doubles, metres. */
     public static double[] read(Path file) {
-        ModelLoader.requireRegularFile(file, "points file");
+        InputFiles.requireRegularFile(file, "points file");
         RunInputs.register(file);
         double[] xyz = new double[3 * 256];
         int n = 0;

@@ -5,7 +5,8 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import dev.cairn.gravity.Constants;
 import dev.cairn.io.InputException;
 import dev.cairn.io.Messages;
-import dev.cairn.io.ModelLoader;
+import dev.cairn.io.InputFiles;
+import dev.cairn.io.InputLimits;
 import dev.cairn.mascon.SurfaceQuery;
 import dev.cairn.mass.MassPropertiesCalculator;
 import dev.cairn.mesh.EdgeTable;
@@ -58,7 +59,7 @@ public final class RegionBodyLoader {
 
     /** Parses the JSON; syntax errors and unknown keys name the file and line. */
     public static BodyDescription read(Path file) {
-        ModelLoader.requireRegularFile(file, "body description");
+        InputFiles.requireRegularFile(file, "body description");
         BodyDescription d;
         try {
             byte[] bytes = dev.cairn.io.StrictJson.bytes(file);
@@ -95,7 +96,7 @@ public final class RegionBodyLoader {
         BodyDescription d = read(file);
         String where = file.toString();
         String unit = unitOverride != null ? unitOverride : d.lengthUnit != null ? d.lengthUnit : "m";
-        double scale = ModelLoader.metresPer(unit, unitOverride != null ? "--units" : where);
+        double scale = InputLimits.metresPer(unit, unitOverride != null ? "--units" : where);
         Path dir = file.toAbsolutePath().normalize().getParent();
         Path realDir = realPath(dir);
         boolean anywhere = Boolean.getBoolean(ALLOW_OUTSIDE_PROPERTY);
@@ -124,7 +125,7 @@ public final class RegionBodyLoader {
                     + "positive, got " + r.density);
             }
             if (r.density != null && r.density > 0) {
-                ModelLoader.requireDensityInRange(r.density, where + ": " + label + ": density ");
+                InputLimits.requireDensityInRange(r.density, where + ": " + label + ": density ");
             }
             if (r.densityGradient != null && !Double.isFinite(r.densityGradient)) {
                 throw new InputException(where + ": " + label + ": density_gradient_kg_m3_per_m must be "
@@ -195,9 +196,9 @@ public final class RegionBodyLoader {
             // The density across the region must stay in range: |gradient| times the outer size is its spread.
             double[] ob = meshes[0].boundingBox();
             double size = Math.max(ob[3] - ob[0], Math.max(ob[4] - ob[1], ob[5] - ob[2]));
-            if (Math.abs(grad[i]) * size > ModelLoader.DENSITY_MAX) {
+            if (Math.abs(grad[i]) * size > InputLimits.DENSITY_MAX) {
                 throw new InputException(where + ": region " + Messages.quote(rn[i]) + ": density gradient " + grad[i]
-                    + " kg/m^3 per m changes the density by more than " + ModelLoader.DENSITY_MAX
+                    + " kg/m^3 per m changes the density by more than " + InputLimits.DENSITY_MAX
                     + " kg/m^3 across the body");
             }
         }
@@ -231,7 +232,7 @@ public final class RegionBodyLoader {
                     + "' gives GM " + gm + " m^3/s^2 (the other regions alone already give "
                     + String.format(Locale.ROOT, "%.6g", Constants.G * others) + " m^3/s^2)");
             }
-            ModelLoader.requireDensityInRange(value, where + ": solved density of region " + Messages.quote(rn[solve])
+            InputLimits.requireDensityInRange(value, where + ": solved density of region " + Messages.quote(rn[solve])
                 + " is ");
             rho[solve] = value;
             warnings.add(where + ": density of region '" + rn[solve] + "' solved from GM " + gm + " m^3/s^2: "
@@ -249,7 +250,7 @@ public final class RegionBodyLoader {
             }
         }
         for (int i = 0; i < n; i++) {
-            if (rho[i] > 0 && (rho[i] < ModelLoader.DENSITY_WARN_LOW || rho[i] > ModelLoader.DENSITY_WARN_HIGH)) {
+            if (rho[i] > 0 && (rho[i] < InputLimits.DENSITY_WARN_LOW || rho[i] > InputLimits.DENSITY_WARN_HIGH)) {
                 warnings.add(where + ": region '" + rn[i] + "': density " + String.format(Locale.ROOT, "%.4g", rho[i])
                     + " kg/m^3 is outside the usual 100-8000 kg/m^3 of small bodies; check the units");
             }

@@ -3,7 +3,7 @@ package dev.cairn.surface;
 import dev.cairn.gravity.BatchEvaluation;
 import dev.cairn.gravity.FieldSample;
 import dev.cairn.gravity.Location;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.mesh.EdgeTable;
 import dev.cairn.mesh.TriangleMesh;
 import dev.cairn.rotation.RotatingFrame;

@@ -1,6 +1,6 @@
 package dev.cairn.viewer;
 
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import dev.cairn.mass.MassProperties;
 import dev.cairn.mesh.TriangleMesh;
 import java.util.HashMap;

@@ -2,7 +2,7 @@ package dev.cairn.viewer;
 
 import dev.cairn.cli.ModelOptions;
 import dev.cairn.cli.SpinOptions;
-import dev.cairn.io.BodyModel;
+import dev.cairn.body.BodyModel;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;

@@ -5,8 +5,8 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.cairn.io.InputException;
-import dev.cairn.io.ModelLoader;
-import dev.cairn.io.ModelRequest;
+import dev.cairn.body.ModelLoader;
+import dev.cairn.body.ModelRequest;
 import dev.cairn.mass.MassPropertiesCalculator;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;

@@ -1,8 +1,8 @@
 package dev.cairn.viewer;
 
-import dev.cairn.io.BodyModel;
-import dev.cairn.io.ModelLoader;
-import dev.cairn.io.ModelRequest;
+import dev.cairn.body.BodyModel;
+import dev.cairn.body.ModelLoader;
+import dev.cairn.body.ModelRequest;
 import dev.cairn.mesh.TriangleMesh;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;

@@ -1,5 +1,7 @@
-package dev.cairn.io;
+package dev.cairn.body;
 
+import dev.cairn.io.StrictJson;
+import dev.cairn.io.InputException;
 import com.fasterxml.jackson.annotation.JsonIgnoreProperties;
 import com.fasterxml.jackson.annotation.JsonProperty;
 import java.nio.file.Path;

@@ -1,5 +1,6 @@
-package dev.cairn.io;
+package dev.cairn.body;
 
+import dev.cairn.io.InputException;
 import dev.cairn.gravity.Constants;
 import dev.cairn.gravity.FieldModel;
 import dev.cairn.gravity.PolyhedronField;

@@ -1,4 +1,4 @@
-package dev.cairn.io;
+package dev.cairn.body;
 
 /**
  * What the user asked for when loading a model; {@code null} fields fall back to the sidecar, then to defaults.

@@ -1,5 +1,6 @@
-package dev.cairn.io;
+package dev.cairn.body;
 
+import dev.cairn.io.InputException;
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNull;

@@ -1,5 +1,10 @@
-package dev.cairn.io;
+package dev.cairn.body;
 
+import dev.cairn.io.RunInputs;
+import dev.cairn.io.Messages;
+import dev.cairn.io.InputLimits;
+import dev.cairn.io.InputFiles;
+import dev.cairn.io.InputException;
 import dev.cairn.gravity.Constants;
 import dev.cairn.mass.MassPropertiesCalculator;
 import dev.cairn.mesh.EdgeTable;
@@ -19,17 +24,14 @@ import java.util.List;
  * then the sidecar, then defaults (no density; no spin).
  */
 public final class ModelLoader {
-    /** Densities outside this range (kg/m^3) draw a warning (Carry 2012, Planet. Space Sci. 73:98–118, widened). */
-    public static final double DENSITY_WARN_LOW = 100;
-    public static final double DENSITY_WARN_HIGH = 8000;
-    /**
-     * Densities outside this range (kg/m^3) are refused: a millionth of air's density to beyond any ordinary
-     * matter (white-dwarf matter is about 1e9), far outside any body this program models (those draw a warning
-     * outside 100-8000), and small enough that G·M and the inertia stay finite for every accepted body size
-     * (common practice, no source).
-     */
-    public static final double DENSITY_MIN = 1e-6;
-    public static final double DENSITY_MAX = 1e12;
+    /** See {@link InputLimits#DENSITY_WARN_LOW}. */
+    public static final double DENSITY_WARN_LOW = InputLimits.DENSITY_WARN_LOW;
+    /** See {@link InputLimits#DENSITY_WARN_HIGH}. */
+    public static final double DENSITY_WARN_HIGH = InputLimits.DENSITY_WARN_HIGH;
+    /** See {@link InputLimits#DENSITY_MIN}. */
+    public static final double DENSITY_MIN = InputLimits.DENSITY_MIN;
+    /** See {@link InputLimits#DENSITY_MAX}. */
+    public static final double DENSITY_MAX = InputLimits.DENSITY_MAX;
     /**
      * Spin periods outside this range (seconds) are refused: 1 s is far below the fastest-spinning small bodies
      * (minutes), 1e12 s (about 32,000 years) is as good as no spin (common practice, no source).
@@ -42,13 +44,7 @@ public final class ModelLoader {
 
     /** Metres per model unit for "m" or "km". */
     public static double metresPer(String unit, String where) {
-        if ("m".equals(unit)) {
-            return 1.0;
-        }
-        if ("km".equals(unit)) {
-            return 1000.0;
-        }
-        throw new InputException(where + ": unknown length unit '" + unit + "' (use m or km)");
+        return InputLimits.metresPer(unit, where);
     }
 
     /**
@@ -99,13 +95,7 @@ public final class ModelLoader {
      * @param what e.g. "model", "points file"
      */
     public static void requireRegularFile(Path file, String what) {
-        if (!Files.exists(file)) {
-            throw new InputException(Messages.path(file) + ": no such file");
-        }
-        if (!Files.isRegularFile(file)) {
-            throw new InputException(Messages.path(file) + ": not a regular file (a " + what + " must be a file, not a "
-                + "directory, device or pipe)");
-        }
+        InputFiles.requireRegularFile(file, what);
     }
 
     /** A body description: regions' densities, outer shape as the mesh, spin from the description or request. */
@@ -183,10 +173,7 @@ public final class ModelLoader {
      * @param prefix start of the message, e.g. {@code "--gm 1e308 gives a density of "} or {@code "file: density "}
      */
     public static void requireDensityInRange(double rho, String prefix) {
-        if (!(rho >= DENSITY_MIN && rho <= DENSITY_MAX)) {
-            throw new InputException(prefix + String.format(java.util.Locale.ROOT, "%.4g", rho) + " kg/m^3, outside "
-                + "the " + DENSITY_MIN + " to " + DENSITY_MAX + " kg/m^3 this program accepts");
-        }
+        InputLimits.requireDensityInRange(rho, prefix);
     }
 
     /** Refuses a spin period outside [{@link #SPIN_PERIOD_MIN_S}, {@link #SPIN_PERIOD_MAX_S}] seconds. */
