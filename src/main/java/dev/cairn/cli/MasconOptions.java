@@ -138,6 +138,11 @@ public final class MasconOptions {
         return r.set();
     }
 
+    /** True when the options leave the default, the body's own polyhedron field. */
+    boolean polyhedron() {
+        return model.toLowerCase(Locale.ROOT).equals("polyhedron") && degree == null && coefficients == null;
+    }
+
     /** Builds the chosen field model; for mascons, prints the mass-property report to {@code err}. */
     FieldModel build(BodyModel body, int threads, PrintWriter err) {
         if (model.toLowerCase(Locale.ROOT).equals("harmonics")) {

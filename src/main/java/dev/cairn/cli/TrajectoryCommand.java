@@ -69,6 +69,9 @@ public final class TrajectoryCommand implements Callable<Integer> {
     @Mixin
     SpinOptions spinOptions = new SpinOptions();
 
+    @Mixin
+    MasconOptions fieldChoice = new MasconOptions();
+
     @Option(names = "--states", required = true, paramLabel = "FILE.csv",
         description = "Initial states, one per row: x_m,y_m,z_m,vx_m_s,vy_m_s,vz_m_s in the chosen frame at t = 0 "
             + "(header line optional; # comments and blank lines skipped).")
@@ -143,7 +146,15 @@ public final class TrajectoryCommand implements Callable<Integer> {
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
         }
-        FieldModel field = field(body, table);
+        FieldModel field;
+        if (fieldChoice.polyhedron()) {
+            field = field(body, table);
+        } else {
+            if (table != null) {
+                throw new InputException("--table: tables are of the polyhedron field; leave out --model, or --table");
+            }
+            field = fieldChoice.build(body, Long.MAX_VALUE, threads, err);
+        }
         MotionSettings ms = settings(frame, body);
         Propagator prop = propagator(body, field, ms);
         for (int i = 0; i < initial.size(); i++) {
@@ -165,6 +176,14 @@ public final class TrajectoryCommand implements Callable<Integer> {
             }, bar);
         }
         double seconds = (System.nanoTime() - t0) / 1e9;
+        if (field instanceof dev.cairn.gravity.HarmonicField h && h.insideCount() > 0) {
+            err.println(String.format(Locale.ROOT, "cairn: warning: %d field evaluation(s) of the trajectories lay "
+                + "inside the Brillouin sphere (radius %.6g m) of the spherical-harmonic model, where the series "
+                + "diverges: those parts of the paths are not valid", h.insideCount(), h.convergenceRadius()));
+        }
+        if (!(field instanceof dev.cairn.gravity.HarmonicField)) {
+            MasconOptions.warnTooClose(field, initial.size(), err);
+        }
         FieldCheck check = FieldCheck.measure(field, samplePositions(result), FieldCheck.DEFAULT_SAMPLES, 1, threads);
         writeOutputs(body, field, prop, initial, result, frame, dur, stepS, check, seconds);
         report(spec.commandLine().getOut(), body, field, check, result, seconds);
