@@ -57,6 +57,7 @@ class PythonTableReaderTest {
 
     @BeforeAll
     static void body() throws Exception {
+        PythonTools.requireModules("numpy");
         obj = TestShapes.writeObj(TestShapes.lumpySphere(2, 0.15, 7), dir.resolve("lumpy.obj"));
         Files.writeString(dir.resolve("lumpy.json"), "{\"length_unit\": \"km\", \"density_kg_m3\": 2100}");
     }
@@ -129,7 +130,6 @@ class PythonTableReaderTest {
 
     /** Compares Python and Java at the points; returns {max U/a difference, max tensor difference / allowed}. */
     private static double[] compare(Path table, double[][] p, String what) throws Exception {
-        PythonTools.requireModules("numpy");
         Table t = TableFiles.read(table);
         boolean spherical = t.grid() instanceof SphereGrid;
         double[] centre = spherical ? ((SphereGrid) t.grid()).centre() : new double[3];
@@ -239,7 +239,6 @@ class PythonTableReaderTest {
 
     @Test
     void refusesOutsideTheTableLikeJava() throws Exception {
-        PythonTools.requireModules("numpy");
         Path t = table("box-small.npy", "--grid", "box", "--box", "-1500,1500,-1200,1200,-1000,1000", "--spacing",
             "500");
         double[] outside = {1500.001, 0, 0};
@@ -253,7 +252,6 @@ class PythonTableReaderTest {
 
     @Test
     void refusesDataThatDoesNotMatchItsSha256() throws Exception {
-        PythonTools.requireModules("numpy");
         Path t = table("box-damaged.npy", "--grid", "box", "--box", "-1500,1500,-1200,1200,-1000,1000", "--spacing",
             "500");
         byte[] b = Files.readAllBytes(t);
