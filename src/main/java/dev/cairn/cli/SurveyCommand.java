@@ -32,7 +32,8 @@ import picocli.CommandLine.Spec;
     description = {"Survey the surface of the spinning body: slope, effective gravity,",
         "dynamic height, lift-off, escape speed, landing sites and zones, hovering points.",
         "Writes facets.csv (+ facets.csv.json metadata sidecar), zones.csv, summary.json,",
-        "surface.vtk (VTK unstructured grid: slope active, metadata as field data) and PNG maps to --out.",
+        "surface.vtk (VTK unstructured grid for VTK, ParaView, meshio; slope active, metadata",
+        "as field data) and PNG maps to --out.",
         "SI units, model (body-fixed) frame, U > 0, g = grad U; see docs/survey.md.",
         "Caution: results must be verified independently before operational use;",
         "mission rules and the responsible flight-dynamics authority decide."})
