@@ -204,6 +204,20 @@ class _Axis:
         return i, s, width
 
 
+def _numbers(obj, key, count, where, integer=False):
+    """A list of finite numbers (count of them, or any count >= 1 when None) from a sidecar object."""
+    v = obj.get(key)
+    if not isinstance(v, list):
+        v = [v]
+    ok = len(v) >= 1 and (count is None or len(v) == count) and all(
+        isinstance(x, (int, float)) and not isinstance(x, bool) and math.isfinite(x)
+        and (not integer or float(x) == int(x)) for x in v)
+    if not ok:
+        raise TableError("%s: key %r must be %s finite number%s" % (where, key, count or "one or more",
+                                                                    "" if count == 1 else "s"))
+    return [int(x) for x in v] if integer else [float(x) for x in v]
+
+
 def _basis(s, h):
     """Cubic Hermite basis and its derivative on one axis (TableField.Evaluator.basis), same operation order."""
     s2 = s * s
@@ -232,20 +246,29 @@ class Table:
         self.has_gradient = "gxx_s2" in self.columns
         self._gcol = self.columns.index("gxx_s2") if self.has_gradient else -1
         self.gm = meta.get("gm_m3_s2")
+        where = "%s.json: grid" % path
         if self.kind == "box":
             self.spherical = False
             self.centre = np.zeros(3)
-            n = grid["nodes"]
-            self.axes = [_Axis.make_uniform(int(n[a]), float(grid["origin_m"][a]), float(grid["spacing_m"][a]), False)
-                         for a in range(3)]
+            n = _numbers(grid, "nodes", 3, where, integer=True)
+            origin = _numbers(grid, "origin_m", 3, where)
+            spacing = _numbers(grid, "spacing_m", 3, where)
+            if any(c < 2 for c in n) or any(not h > 0 for h in spacing):
+                raise TableError("%s: need at least 2 nodes and a positive spacing per axis" % where)
+            self.axes = [_Axis.make_uniform(int(n[a]), origin[a], spacing[a], False) for a in range(3)]
         elif self.kind == "sphere":
             self.spherical = True
-            self.centre = np.array(grid["centre_m"], dtype=np.float64)
-            radii = grid["radii_m"]
+            self.centre = np.array(_numbers(grid, "centre_m", 3, where), dtype=np.float64)
+            radii = _numbers(grid, "radii_m", None, where)
             if len(radii) < 2:
                 raise TableError("%s: a spherical table with one radius cannot be interpolated in 3-D" % path)
-            lat_step = float(grid["lat_step_deg"])
-            lon_step = float(grid["lon_step_deg"])
+            if radii[0] <= 0 or any(not b > a for a, b in zip(radii, radii[1:])):
+                raise TableError("%s: radii_m must be positive and strictly ascending" % where)
+            lat_step = _numbers(grid, "lat_step_deg", 1, where)[0]
+            lon_step = _numbers(grid, "lon_step_deg", 1, where)[0]
+            if not (0 < lat_step <= 90 and 0 < lon_step <= 180):
+                raise TableError("%s: lat_step_deg and lon_step_deg must divide 180 and 360 into 2 or more steps"
+                                 % where)
             nlat = int(np.rint(180 / lat_step)) + 1
             nlon = int(np.rint(360 / lon_step))
             self.axes = [_Axis.make_list(radii), _Axis.make_uniform(nlat, -math.pi / 2, lat_step * _DEG, False),

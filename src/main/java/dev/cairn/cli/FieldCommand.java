@@ -87,6 +87,13 @@ public final class FieldCommand implements Callable<Integer> {
             o.print(sb);
             o.flush();
         } else {
+            // An old sidecar goes first: killed between the two writes, the CSV has no sidecar, never a wrong one.
+            Path oldSide = OutputMetadata.sidecarPath(out);
+            dev.cairn.io.RunInputs.requireWritable(oldSide.toAbsolutePath()); // never an input, e.g. a model sidecar
+            dev.cairn.io.RunInputs.requireWritable(out.toAbsolutePath());
+            if (java.nio.file.Files.isRegularFile(oldSide, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+                java.nio.file.Files.delete(oldSide);
+            }
             AtomicFiles.write(out, os -> writeTo(os, xyz, res, dist));
             Path side = writeSidecar(body, field, xyz.length / 3, dist != null);
             err.println("cairn: wrote " + (xyz.length / 3) + " points to " + out + " (metadata in " + side + ")");
