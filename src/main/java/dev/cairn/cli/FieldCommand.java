@@ -7,6 +7,7 @@ import dev.cairn.gravity.FieldSample;
 import dev.cairn.gravity.Location;
 import dev.cairn.io.AtomicFiles;
 import dev.cairn.body.BodyModel;
+import dev.cairn.io.OutputMetadata;
 import dev.cairn.io.PointsCsv;
 import dev.cairn.util.ParallelChunks;
 import java.io.IOException;
@@ -45,7 +46,8 @@ public final class FieldCommand implements Callable<Integer> {
         + "(distance_to_surface_m, negative inside).")
     boolean distance;
 
-    @Option(names = "--out", paramLabel = "FILE", description = "Output CSV (default: standard output).")
+    @Option(names = "--out", paramLabel = "FILE", description = "Output CSV (default: standard output); its "
+        + "metadata (model SHA-256, density, GM, spin, G, conventions, version) goes to FILE.json.")
     Path out;
 
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all processors).")
@@ -85,10 +87,44 @@ public final class FieldCommand implements Callable<Integer> {
             o.print(sb);
             o.flush();
         } else {
+            // An old sidecar goes first: killed between the two writes, the CSV has no sidecar, never a wrong one.
+            Path oldSide = OutputMetadata.sidecarPath(out);
+            dev.cairn.io.RunInputs.requireWritable(oldSide.toAbsolutePath()); // never an input, e.g. a model sidecar
+            dev.cairn.io.RunInputs.requireWritable(out.toAbsolutePath());
+            if (java.nio.file.Files.isRegularFile(oldSide, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+                java.nio.file.Files.delete(oldSide);
+            }
             AtomicFiles.write(out, os -> writeTo(os, xyz, res, dist));
-            err.println("cairn: wrote " + (xyz.length / 3) + " points to " + out);
+            Path side = writeSidecar(body, field, xyz.length / 3, dist != null);
+            err.println("cairn: wrote " + (xyz.length / 3) + " points to " + out + " (metadata in " + side + ")");
         }
         return 0;
+    }
+
+    /**
+     * {@code FILE.json} beside {@code --out FILE}, atomically: the model's {@link OutputMetadata} (file, SHA-256,
+     * density, GM of the field used, spin, G, conventions, version), the CSV's SHA-256, the points file and its
+     * SHA-256, and the columns.
+     */
+    private Path writeSidecar(BodyModel body, FieldModel field, int n, boolean withDistance) {
+        Path src = body.source();
+        OutputMetadata meta = new OutputMetadata("cairn field values at points", src == null ? null : src.toString(),
+            src == null ? null : OutputMetadata.sha256(src), body.density(), field.gm(),
+            body.spin() == null ? Double.POSITIVE_INFINITY : body.spin().periodSeconds(),
+            body.spin() == null ? new double[] {0, 0, 1} : body.spin().axis(), body.massProperties().centerOfMass(),
+            field.describe(), VersionProvider.version());
+        java.util.Map<String, Object> extra = new java.util.LinkedHashMap<>();
+        extra.put("data_layout", "CSV, UTF-8; header line of column names first, then one row per point in the "
+            + "order of the points file; location is inside, outside, surface or unknown");
+        extra.put("rows", n);
+        String header = HEADER + (gradient ? GRADIENT_HEADER : "") + (withDistance ? ","
+            + dev.cairn.tables.TableLayout.DISTANCE : "");
+        extra.put("columns", java.util.List.of(header.split(",")));
+        extra.put("points_file", points.toString());
+        extra.put("points_sha256", OutputMetadata.sha256(points));
+        extra.put("spin_note", "the values are the gravity of the body (no centrifugal term); the spin state is given "
+            + "to identify the model");
+        return meta.writeSidecar(out, extra);
     }
 
     /** Exact signed distances of the points to the body's (outer) surface, m, negative inside. */

@@ -31,7 +31,9 @@ import picocli.CommandLine.Spec;
     header = "Survey the surface of the spinning body (slope, gravity, landing and hovering zones).",
     description = {"Survey the surface of the spinning body: slope, effective gravity,",
         "dynamic height, lift-off, escape speed, landing sites and zones, hovering points.",
-        "Writes facets.csv, zones.csv, summary.json, surface.vtk and PNG maps to --out.",
+        "Writes facets.csv (+ facets.csv.json metadata sidecar), zones.csv, summary.json,",
+        "surface.vtk (VTK unstructured grid for VTK, ParaView, meshio; slope active, metadata",
+        "as field data) and PNG maps to --out.",
         "SI units, model (body-fixed) frame, U > 0, g = grad U; see docs/survey.md.",
         "Caution: results must be verified independently before operational use;",
         "mission rules and the responsible flight-dynamics authority decide."})
@@ -94,7 +96,7 @@ public final class SurveyCommand implements Callable<Integer> {
         for (String n : r.notes()) {
             err.println("cairn: note: " + n);
         }
-        SurveyOutputs.writeAll(r, out);
+        SurveyOutputs.writeAll(r, out, VersionProvider.version());
         report(spec.commandLine().getOut(), r);
         if (views) {
             renderViews(body, err);

@@ -86,6 +86,16 @@ public final class FacetColumns {
         new Column("map_layer", true, "layer of the lat/lon maps that shows the facet: 1 = outermost along the ray "
             + "from the centre of mass, k = below k - 1 other crossings", (r, f) -> r.mapLayer[f]));
 
+    /** The column called {@code name}. */
+    public static Column byName(String name) {
+        for (Column c : ALL) {
+            if (c.name().equals(name)) {
+                return c;
+            }
+        }
+        throw new IllegalArgumentException("no facet column " + name);
+    }
+
     /** The header line of facets.csv (no trailing newline). */
     public static String csvHeader() {
         StringBuilder sb = new StringBuilder();

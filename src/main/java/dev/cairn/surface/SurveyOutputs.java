@@ -3,6 +3,7 @@ package dev.cairn.surface;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import dev.cairn.io.AtomicFiles;
+import dev.cairn.io.OutputMetadata;
 import dev.cairn.mesh.TriangleMesh;
 import java.io.DataOutputStream;
 import java.io.IOException;
@@ -19,15 +20,18 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * Writes a {@link SurveyResult} to a directory, each file atomically ({@link AtomicFiles}): {@code facets.csv},
- * {@code summary.json}, {@code surface.vtk} (legacy VTK PolyData, binary encoding, every per-facet quantity as cell data) and
- * the PNG maps of {@link SurveyMaps}. Columns and keys are documented in {@code docs/survey.md}.
+ * Writes a {@link SurveyResult} to a directory, each file atomically ({@link AtomicFiles}): {@code facets.csv} and
+ * its sidecar {@code facets.csv.json}, {@code summary.json}, {@code zones.csv}, {@code surface.vtk} (legacy VTK
+ * unstructured grid of triangles, binary encoding, every per-facet quantity as cell data, the survey's metadata as
+ * field data) and the PNG maps of {@link SurveyMaps}. Columns and keys are documented in {@code docs/survey.md}.
  */
 public final class SurveyOutputs {
     /** File names in the output directory. */
     public static final String CSV = "facets.csv";
     public static final String JSON = "summary.json";
     public static final String VTK = "surface.vtk";
+    /** The JSON sidecar of facets.csv (survey metadata, column meanings, the CSV's SHA-256). */
+    public static final String CSV_SIDECAR = "facets.csv.json";
     /** Every zone's footprint: one row per (facet, zone) membership. */
     public static final String ZONES_CSV = "zones.csv";
 
@@ -49,6 +53,14 @@ public final class SurveyOutputs {
      * nothing but survey outputs (the files written here and PNG views).
      */
     public static List<Path> writeAll(SurveyResult r, Path dir) {
+        return writeAll(r, dir, "unknown");
+    }
+
+    /**
+     * As {@link #writeAll(SurveyResult, Path)}, with the Cairn version recorded in the metadata of
+     * {@code surface.vtk} and {@code facets.csv.json}.
+     */
+    public static List<Path> writeAll(SurveyResult r, Path dir, String version) {
         Path abs = dir.toAbsolutePath().normalize();
         Path parent = abs.getParent();
         String name = abs.getFileName().toString();
@@ -64,9 +76,12 @@ public final class SurveyOutputs {
                 // not a POSIX file system
             }
             List<Path> out = new ArrayList<>();
-            out.add(writeCsv(r, tmp.resolve(CSV)));
+            OutputMetadata meta = metadata(r, version);
+            Path csv = writeCsv(r, tmp.resolve(CSV));
+            out.add(csv);
+            out.add(writeCsvSidecar(r, csv, meta));
             out.add(writeJson(r, tmp.resolve(JSON)));
-            out.add(writeVtk(r, tmp.resolve(VTK)));
+            out.add(writeVtk(r, tmp.resolve(VTK), meta));
             out.add(writeZonesCsv(r, tmp.resolve(ZONES_CSV)));
             out.addAll(SurveyMaps.writeAll(r, tmp));
             Path old = null;
@@ -117,7 +132,7 @@ public final class SurveyOutputs {
     private static boolean isSurveyFile(Path p) {
         String n = p.getFileName().toString();
         return Files.isRegularFile(p, java.nio.file.LinkOption.NOFOLLOW_LINKS) && (n.equals(CSV) || n.equals(JSON)
-            || n.equals(VTK) || n.equals(ZONES_CSV) || n.endsWith(".png") || n.startsWith(".") && n.endsWith(".tmp"));
+            || n.equals(VTK) || n.equals(CSV_SIDECAR) || n.equals(ZONES_CSV) || n.endsWith(".png") || n.startsWith(".") && n.endsWith(".tmp"));
     }
 
     /** Deletes a folder of survey outputs (only such files; the folder itself when then empty). */
@@ -209,20 +224,32 @@ public final class SurveyOutputs {
     }
 
     /**
-     * {@code surface.vtk}: legacy VTK 3.0 PolyData in the format's BINARY encoding (big-endian IEEE doubles and 32-bit
-     * ints after ASCII keyword lines, so NaN and full precision survive), one SCALARS cell array per
-     * {@link FacetColumns} column (integer columns as {@code int}), plus cell NORMALS and VECTORS.
+     * {@code surface.vtk}: legacy VTK 3.0 ("VTK User's Guide", "VTK File Formats") unstructured grid of triangles
+     * (cell type 5, {@code VTK_TRIANGLE}) in the format's BINARY encoding (big-endian IEEE doubles and 32-bit ints after
+     * ASCII keyword lines, so NaN and full precision survive). Read unaided by VTK 9 ({@code vtkUnstructuredGridReader},
+     * {@code vtkDataSetReader}), ParaView and meshio 5 (which reads neither POLYDATA nor string arrays, nor a dataset
+     * FIELD placed before the points). Layout:
+     * <ol>
+     * <li>{@code POINTS}, {@code CELLS}, {@code CELL_TYPES};</li>
+     * <li>{@code FIELD FieldData}: the survey's {@link OutputMetadata} (numbers as double arrays, texts as
+     *     {@code unsigned_char} arrays of their UTF-8 bytes), placed after the cell types so that meshio reads it
+     *     into {@code field_data};</li>
+     * <li>{@code CELL_DATA}: {@code SCALARS slope_deg} first (the active scalar), {@code VECTORS gravity_m_s2} (the
+     *     active vector), then one {@code FIELD} with every other {@link FacetColumns} column (integer columns as
+     *     {@code int}), {@code normal} and {@code accel_eff_m_s2} (3 components). A FIELD rather than more SCALARS:
+     *     VTK's legacy reader keeps only the first SCALARS and VECTORS unless told otherwise.</li>
+     * </ol>
      */
-    public static Path writeVtk(SurveyResult r, Path file) {
+    public static Path writeVtk(SurveyResult r, Path file, OutputMetadata meta) {
         TriangleMesh mesh = r.target.mesh();
         AtomicFiles.write(file, os -> {
             DataOutputStream out = new DataOutputStream(os);
             String title = ("Cairn surface survey of " + r.target.name().replaceAll("[\\r\\n]", " ")
-                + ": SI units, U>0, g=grad U; verify independently before operational use");
+                + ": SI units, U > 0, acceleration = grad U; verify independently before operational use");
             if (title.length() > 255) {
                 title = title.substring(0, 255);
             }
-            ascii(out, "# vtk DataFile Version 3.0\n" + title + "\nBINARY\nDATASET POLYDATA\n");
+            ascii(out, "# vtk DataFile Version 3.0\n" + title + "\nBINARY\nDATASET UNSTRUCTURED_GRID\n");
             double[] xyz = mesh.xyz();
             int nv = mesh.vertexCount();
             ascii(out, "POINTS " + nv + " double\n");
@@ -231,17 +258,49 @@ public final class SurveyOutputs {
             }
             int nf = r.facets;
             int[] tri = mesh.tri();
-            ascii(out, "\nPOLYGONS " + nf + " " + 4L * nf + "\n");
+            ascii(out, "\nCELLS " + nf + " " + 4L * nf + "\n");
             for (int f = 0; f < nf; f++) {
                 out.writeInt(3);
                 out.writeInt(tri[3 * f]);
                 out.writeInt(tri[3 * f + 1]);
                 out.writeInt(tri[3 * f + 2]);
             }
-            ascii(out, "\nCELL_DATA " + nf + "\n");
+            ascii(out, "\nCELL_TYPES " + nf + "\n");
+            for (int f = 0; f < nf; f++) {
+                out.writeInt(VTK_TRIANGLE);
+            }
+            ascii(out, "\n");
+            Map<String, double[]> numbers = meta.numbers();
+            Map<String, String> texts = meta.texts();
+            ascii(out, "FIELD FieldData " + (numbers.size() + texts.size()) + "\n");
+            for (Map.Entry<String, String> e : texts.entrySet()) {
+                byte[] b = e.getValue().getBytes(StandardCharsets.UTF_8);
+                ascii(out, e.getKey() + " 1 " + b.length + " unsigned_char\n");
+                out.write(b);
+                ascii(out, "\n");
+            }
+            for (Map.Entry<String, double[]> e : numbers.entrySet()) {
+                double[] v = e.getValue();
+                ascii(out, e.getKey() + " " + v.length + " 1 double\n");
+                for (double x : v) {
+                    out.writeDouble(x);
+                }
+                ascii(out, "\n");
+            }
+            ascii(out, "CELL_DATA " + nf + "\n");
+            FacetColumns.Column slope = FacetColumns.byName(VTK_ACTIVE_SCALAR);
+            ascii(out, "SCALARS " + slope.name() + " double 1\nLOOKUP_TABLE default\n");
+            for (int f = 0; f < nf; f++) {
+                out.writeDouble(slope.getter().value(r, f));
+            }
+            ascii(out, "\n");
+            vectors(out, "VECTORS " + VTK_ACTIVE_VECTOR + " double\n", r.gVec);
+            ascii(out, "FIELD CellArrays " + (FacetColumns.ALL.size() - 1 + 2) + "\n");
             for (FacetColumns.Column c : FacetColumns.ALL) {
-                ascii(out, "SCALARS " + c.name() + (c.integer() ? " int 1\n" : " double 1\n")
-                    + "LOOKUP_TABLE default\n");
+                if (c == slope) {
+                    continue;
+                }
+                ascii(out, c.name() + " 1 " + nf + (c.integer() ? " int\n" : " double\n"));
                 for (int f = 0; f < nf; f++) {
                     double v = c.getter().value(r, f);
                     if (c.integer()) {
@@ -252,13 +311,19 @@ public final class SurveyOutputs {
                 }
                 ascii(out, "\n");
             }
-            vectors(out, "NORMALS normal double\n", r.normal);
-            vectors(out, "VECTORS gravity_m_s2 double\n", r.gVec);
-            vectors(out, "VECTORS accel_eff_m_s2 double\n", r.aEffVec);
+            vectors(out, "normal 3 " + nf + " double\n", r.normal);
+            vectors(out, "accel_eff_m_s2 3 " + nf + " double\n", r.aEffVec);
             out.flush();
         });
         return file;
     }
+
+    /** VTK cell type of a linear triangle ({@code VTK_TRIANGLE} in {@code vtkCellType.h}). */
+    public static final int VTK_TRIANGLE = 5;
+    /** The active scalar (SCALARS) of {@code surface.vtk}. */
+    public static final String VTK_ACTIVE_SCALAR = "slope_deg";
+    /** The active vector (VECTORS) of {@code surface.vtk}: gravity g = grad U, m/s^2. */
+    public static final String VTK_ACTIVE_VECTOR = "gravity_m_s2";
 
     private static void ascii(DataOutputStream out, String s) throws IOException {
         out.write(s.getBytes(StandardCharsets.US_ASCII));
@@ -270,6 +335,38 @@ public final class SurveyOutputs {
             out.writeDouble(x);
         }
         ascii(out, "\n");
+    }
+
+    /**
+     * The survey's metadata (model, density, GM, spin, G, conventions, version) carried by {@code surface.vtk} and
+     * the sidecar {@code facets.csv.json}.
+     */
+    public static OutputMetadata metadata(SurveyResult r, String version) {
+        SurveyTarget t = r.target;
+        return new OutputMetadata("cairn surface survey", t.source() == null ? null : t.source().toString(),
+            t.source() == null ? null : sha256(t.source()), t.density(), t.field().gm(), t.spin().periodSeconds(),
+            t.spin().axis(), t.centreOfMass(), t.field().describe(), version);
+    }
+
+    /**
+     * {@code facets.csv.json}: the sidecar of {@code facets.csv}, written atomically after it: the survey's
+     * {@link OutputMetadata}, the CSV's SHA-256, layout and every column with its meaning and unit.
+     */
+    public static Path writeCsvSidecar(SurveyResult r, Path csv, OutputMetadata meta) {
+        Map<String, Object> extra = new LinkedHashMap<>();
+        extra.put("data_layout", "CSV, UTF-8; header line of column names first (no comment lines), then one row "
+            + "per facet in OBJ order; integers without a decimal point, NaN where a value does not apply");
+        extra.put("rows", r.facets);
+        List<Map<String, Object>> cols = new ArrayList<>();
+        for (FacetColumns.Column c : FacetColumns.ALL) {
+            Map<String, Object> m = new LinkedHashMap<>();
+            m.put("name", c.name());
+            m.put("integer", c.integer());
+            m.put("description", c.description());
+            cols.add(m);
+        }
+        extra.put("columns", cols);
+        return meta.writeSidecar(csv, extra);
     }
 
     /** {@code summary.json}. */

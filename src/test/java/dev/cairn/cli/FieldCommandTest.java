@@ -96,6 +96,47 @@ class FieldCommandTest {
     }
 
     /**
+     * {@code --out FILE} writes the sidecar FILE.json: SHA-256 of the CSV and of the model and points files (FIPS
+     * 180-4 via MessageDigest), density, GM = G rho V of the 2 x 1.5 x 1 m box (volume by hand), G (CODATA 2018),
+     * conventions and version.
+     */
+    @Test
+    void outFileHasAMetadataSidecar() throws Exception {
+        Path out = dir.resolve("field.csv");
+        CliRun r = CliRun.of("field", box.toString(), "--density", "2000", "--points", points.toString(),
+            "--out", out.toString(), "--threads", "2");
+        assertEquals(0, r.exit(), r.err());
+        com.fasterxml.jackson.databind.JsonNode j = new com.fasterxml.jackson.databind.ObjectMapper()
+            .readTree(dir.resolve("field.csv.json").toFile());
+        java.util.function.Function<Path, String> sha = p -> {
+            try {
+                return java.util.HexFormat.of().formatHex(java.security.MessageDigest.getInstance("SHA-256")
+                    .digest(Files.readAllBytes(p)));
+            } catch (Exception e) {
+                throw new IllegalStateException(e);
+            }
+        };
+        assertEquals("field.csv", j.get("data_file").asText());
+        assertEquals(sha.apply(out), j.get("data_sha256").asText());
+        assertEquals(sha.apply(box), j.get("model_sha256").asText());
+        assertEquals(sha.apply(points), j.get("points_sha256").asText());
+        assertEquals(DENSITY, j.get("density_kg_m3").asDouble(), 0.0);
+        assertEquals(6.67430e-11, j.get("G_m3_kg_s2").asDouble(), 0.0);
+        double gm = 6.67430e-11 * DENSITY * 2 * 1.5 * 1;
+        assertEquals(gm, j.get("gm_m3_s2").asDouble(), 1e-12 * gm);
+        assertTrue(j.get("conventions").asText().contains("U > 0, acceleration = grad U"));
+        assertEquals(POINTS.length, j.get("rows").asInt());
+        assertEquals(FieldCommand.HEADER, String.join(",", toList(j.get("columns"))));
+        assertFalse(j.get("cairn_version").asText().isBlank());
+    }
+
+    private static java.util.List<String> toList(com.fasterxml.jackson.databind.JsonNode a) {
+        java.util.List<String> l = new java.util.ArrayList<>();
+        a.forEach(n -> l.add(n.asText()));
+        return l;
+    }
+
+    /**
      * {@code --distance}: the signed distance to the box, by the elementary formula (outside: length of the excess
      * over the faces; inside: minus the distance to the nearest face; common practice, no source).
      */

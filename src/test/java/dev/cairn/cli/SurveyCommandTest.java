@@ -29,7 +29,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 /**
  * {@code cairn survey} end to end on a small icosphere written to a temporary folder: exit codes, one-line errors,
- * and every output file read back with plain parsers (CSV header and units, JSON keys, VTK legacy PolyData cell-data
+ * and every output file read back with plain parsers (CSV header and units, JSON keys, VTK legacy unstructured grid cell-data
  * counts as in the VTK file-format specification, PNG decoded by ImageIO with the documented size).
  */
 class SurveyCommandTest {
@@ -186,14 +186,15 @@ class SurveyCommandTest {
     @Test
     void vtkHasEveryQuantityAsCellData() throws Exception {
         // Legacy VTK file format (VTK User's Guide, "VTK File Formats"): ASCII keyword lines; with BINARY, data are
-        // big-endian and each block is followed by a newline.
+        // big-endian and each block is followed by a newline; UNSTRUCTURED_GRID with CELLS and CELL_TYPES (5 =
+        // VTK_TRIANGLE, vtkCellType.h); FIELD arrays "name numComponents numTuples type".
         List<String> csv = Files.readAllLines(out.resolve("facets.csv"), StandardCharsets.UTF_8);
         try (DataInputStream in = new DataInputStream(new java.io.BufferedInputStream(
             Files.newInputStream(out.resolve("surface.vtk"))))) {
             assertEquals("# vtk DataFile Version 3.0", line(in));
             assertTrue(line(in).length() <= 256, "title line limit of the legacy format");
             assertEquals("BINARY", line(in));
-            assertEquals("DATASET POLYDATA", line(in));
+            assertEquals("DATASET UNSTRUCTURED_GRID", line(in));
             String[] pts = line(in).split(" ");
             assertEquals("POINTS", pts[0]);
             assertEquals("double", pts[2]);
@@ -202,7 +203,7 @@ class SurveyCommandTest {
                 assertTrue(Double.isFinite(in.readDouble()));
             }
             assertEquals("", line(in));
-            assertEquals("POLYGONS " + facets + " " + 4 * facets, line(in));
+            assertEquals("CELLS " + facets + " " + 4 * facets, line(in));
             for (int f = 0; f < facets; f++) {
                 assertEquals(3, in.readInt());
                 for (int k = 0; k < 3; k++) {
@@ -211,25 +212,63 @@ class SurveyCommandTest {
                 }
             }
             assertEquals("", line(in));
+            assertEquals("CELL_TYPES " + facets, line(in));
+            for (int f = 0; f < facets; f++) {
+                assertEquals(5, in.readInt(), "VTK_TRIANGLE");
+            }
+            assertEquals("", line(in));
+            String[] fd = line(in).split(" ");
+            assertEquals("FIELD", fd[0]);
+            List<String> meta = new java.util.ArrayList<>();
+            for (int i = 0; i < Integer.parseInt(fd[2]); i++) {
+                String[] h = line(in).split(" ");
+                meta.add(h[0]);
+                int n = Integer.parseInt(h[1]) * Integer.parseInt(h[2]);
+                if (h[3].equals("unsigned_char")) {
+                    in.readNBytes(n);
+                } else {
+                    assertEquals("double", h[3]);
+                    for (int k = 0; k < n; k++) {
+                        in.readDouble();
+                    }
+                }
+                assertEquals("", line(in));
+            }
+            assertTrue(meta.containsAll(List.of("model_sha256", "density_kg_m3", "gm_m3_s2", "G_m3_kg_s2",
+                "spin_period_s", "spin_axis", "conventions", "cairn_version")), meta.toString());
             assertEquals("CELL_DATA " + facets, line(in));
             List<String> header = List.of(csv.get(0).split(","));
+            assertEquals("SCALARS slope_deg double 1", line(in), "slope first: the active scalar");
+            assertEquals("LOOKUP_TABLE default", line(in));
+            int slopeCol = header.indexOf("slope_deg");
+            for (int f = 0; f < facets; f++) {
+                assertEquals(Double.parseDouble(csv.get(f + 1).split(",")[slopeCol]), in.readDouble(), 0.0);
+            }
+            assertEquals("", line(in));
+            assertEquals("VECTORS gravity_m_s2 double", line(in));
+            for (int i = 0; i < 3 * facets; i++) {
+                assertTrue(Double.isFinite(in.readDouble()));
+            }
+            assertEquals("", line(in));
+            String[] cf = line(in).split(" ");
+            assertEquals("FIELD", cf[0]);
+            int arrays = Integer.parseInt(cf[2]);
             int scalars = 0;
             int vectors = 0;
-            String l;
-            while ((l = line(in)) != null) {
-                String[] h = l.split(" ");
-                if (h[0].equals("SCALARS")) {
-                    assertEquals(FacetColumns.ALL.get(scalars).name(), h[1]);
-                    assertEquals("LOOKUP_TABLE default", line(in));
-                    int col = header.indexOf(h[1]);
+            for (int a = 0; a < arrays; a++) {
+                String[] h = line(in).split(" ");
+                assertEquals(facets, Integer.parseInt(h[2]), h[0] + ": one tuple per facet");
+                if (h[1].equals("1")) {
+                    int col = header.indexOf(h[0]);
+                    assertTrue(col >= 0, h[0] + " is a facets.csv column");
                     for (int f = 0; f < facets; f++) {
-                        double v = h[2].equals("int") ? in.readInt() : in.readDouble();
+                        double v = h[3].equals("int") ? in.readInt() : in.readDouble();
                         double expected = Double.parseDouble(csv.get(f + 1).split(",")[col]);
-                        assertEquals(expected, v, 0.0, h[1] + " facet " + f + " agrees with facets.csv");
+                        assertEquals(expected, v, 0.0, h[0] + " facet " + f + " agrees with facets.csv");
                     }
                     scalars++;
                 } else {
-                    assertTrue(h[0].equals("VECTORS") || h[0].equals("NORMALS"), l);
+                    assertEquals("3", h[1], l(h));
                     for (int i = 0; i < 3 * facets; i++) {
                         assertTrue(Double.isFinite(in.readDouble()));
                     }
@@ -237,9 +276,14 @@ class SurveyCommandTest {
                 }
                 assertEquals("", line(in));
             }
-            assertEquals(FacetColumns.ALL.size(), scalars);
-            assertEquals(3, vectors);
+            assertEquals(null, line(in), "end of file");
+            assertEquals(FacetColumns.ALL.size() - 1, scalars, "every column but slope_deg in the cell FIELD");
+            assertEquals(2, vectors, "normal and accel_eff_m_s2");
         }
+    }
+
+    private static String l(String[] h) {
+        return String.join(" ", h);
     }
 
     @Test
