@@ -349,8 +349,9 @@ public final class TableCommand implements Callable<Integer> {
                 continue;
             }
             for (String v : o.originalStringValues()) {
-                args.add(o.longestName());
-                args.add(o.type() == Path.class ? Path.of(v).toAbsolutePath().normalize().toString() : v);
+                // NAME=VALUE, one word: a value that starts with '-' (a box bound) cannot be taken for an option
+                args.add(o.longestName() + "=" + (o.type() == Path.class
+                    ? Path.of(v).toAbsolutePath().normalize().toString() : v));
             }
         }
         args.addAll(List.of("--format", fmt, "--threads", taskThreads));
