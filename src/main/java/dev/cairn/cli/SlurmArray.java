@@ -207,8 +207,11 @@ public final class SlurmArray {
         b.append("if [ \"$k\" -ge \"$n\" ]; then echo \"cairn: task $k is beyond the $n shards\" >&2; exit 2; fi\n");
         b.append("i=$((k + 1))\n");
         b.append("shard=").append(quote(dir.toString())).append("/$(printf 'shard-%04d-of-%04d.npy' \"$i\" \"$n\")\n");
+        b.append("# a requeued or resubmitted task continues from its checkpoints (a different job there is refused)\n");
+        b.append("resume=\n");
+        b.append("if [ -f \"$shard.partial/job.json\" ]; then resume=--resume; fi\n");
         b.append("exec ").append(launch()).append(" ").append(words(tableArgs))
-            .append(" --shard \"$i/$n\" --out \"$shard\"\n");
+            .append(" --shard \"$i/$n\" --out \"$shard\" $resume\n");
         return b.toString();
     }
 

@@ -309,9 +309,13 @@ public final class TableCommand implements Callable<Integer> {
         }
     }
 
-    /** Options that are not passed on to the tasks of a Slurm array (they are replaced or belong to --slurm). */
+    /**
+     * Options that are not passed on to the tasks of a Slurm array: they belong to --slurm or are set per task
+     * (--resume is added by the task itself when its checkpoints exist).
+     */
     private static final java.util.Set<String> NOT_PASSED = java.util.Set.of("--slurm", "--slurm-submit",
-        "--slurm-cpus", "--slurm-sbatch", "--slurm-sbatch-command", "--out", "--format", "--threads", "--shard");
+        "--slurm-cpus", "--slurm-sbatch", "--slurm-sbatch-command", "--out", "--format", "--threads", "--shard",
+        "--resume");
 
     /** --slurm N: writes (and with --slurm-submit submits) the job array and its merge job; computes nothing. */
     private int slurm(BodyModel body, PrintWriter err, PrintWriter outw) {

@@ -123,6 +123,12 @@ class SlurmArrayTest {
             want.addAll(List.of("--shard", (k + 1) + "/4", "--out", job.shard(k + 1).toString()));
             assertEquals(want, got, "task " + k);
         }
+        // a task whose checkpoints exist (requeued, resubmitted) resumes from them
+        Files.createDirectories(Path.of(job.shard(2) + ".partial"));
+        Files.writeString(Path.of(job.shard(2) + ".partial", "job.json"), "{}");
+        List<String> resumed = new ArrayList<>(table);
+        resumed.addAll(List.of("--shard", "2/4", "--out", job.shard(2).toString(), "--resume"));
+        assertEquals(resumed, bash(job.arrayScript(), "1", 0));
         // shard names are distinct and in the job folder
         assertEquals(dir.resolve("job").resolve("t.npy.slurm").resolve("shard-0003-of-0004.npy").toAbsolutePath(),
             job.shard(3));
@@ -159,7 +165,7 @@ class SlurmArrayTest {
         assertTrue(array.contains("--spin-period=5h") && array.contains("--spin-axis=0,0,1"), array);
         // the table's format comes from the extension of --out: the shards must be told, their own files are .npy
         assertTrue(array.contains("--format=csv") || array.contains("--format csv"), array);
-        assertTrue(array.contains("--threads 2 --shard \"$i/$n\" --out \"$shard\""), array);
+        assertTrue(array.contains("--threads 2 --shard \"$i/$n\" --out \"$shard\" $resume\n"), array);
         String exec = array.substring(array.indexOf("\nexec "));
         assertFalse(exec.contains("--slurm"), exec);
         String merge = Files.readString(d.resolve("table-merge.sbatch"));
