@@ -56,7 +56,9 @@ import picocli.CommandLine.Spec;
         "      --spacing 100 --gradient --out t.npy",
         "  cairn table M.obj --grid sphere --radii 2000:6000:250 \\",
         "      --lat-step 5 --lon-step 5 --out s.npy",
-        "  cairn table M.obj --grid points --points traj.csv --out p.csv"})
+        "  cairn table M.obj --grid points --points traj.csv --out p.csv",
+        "  cairn table M.obj --grid box ... --out big.npy --slurm 64 --slurm-submit",
+        "      (a Slurm job array of 64 shards and a merge job; see docs/cluster.md)"})
 public final class TableCommand implements Callable<Integer> {
     /** Default node limit without --force. */
     public static final int DEFAULT_MAX_NODES = 2_000_000;
