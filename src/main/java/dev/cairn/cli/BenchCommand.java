@@ -38,7 +38,8 @@ public final class BenchCommand implements Callable<Integer> {
     int repeat = 3;
 
     @Option(names = "--mascons", paramLabel = "N", description = "Also time a tetrahedral mascon set of about N "
-        + "point masses (0: skip; default ${DEFAULT-VALUE}).")
+        + "point masses (0: skip; default ${DEFAULT-VALUE}; the count made is a whole number per facet, printed "
+        + "beside N when it differs).")
     int mascons = 20000;
 
     @Option(names = "--fast-field", description = "Also benchmark the hierarchical field: build time, memory, "
@@ -188,6 +189,13 @@ public final class BenchCommand implements Callable<Integer> {
         dev.cairn.mascon.MasconField field = new dev.cairn.mascon.MasconField(
             MasconOptions.generate(body, "tetra", mascons, all));
         out.printf(Locale.ROOT, "Mascons: %s%n", field.describe());
+        int facets = body.mesh().facetCount();
+        if (field.count() != mascons) {
+            // --mascons N cannot always be met exactly: say what was made and why
+            out.printf(Locale.ROOT, "Mascons: %d requested, %d made: the tetrahedral scheme puts the same whole number "
+                + "(divisions^2 x shells) under each of the %d facets, so the count is a multiple of %d%s%n", mascons,
+                field.count(), facets, facets, mascons < facets ? ", at least one per facet" : " near the request");
+        }
         BatchEvaluation.evaluate(field, xyz, false, all, ProgressListener.NONE);
         for (int threads : new int[] {1, all}) {
             double best = Double.POSITIVE_INFINITY;

@@ -185,6 +185,8 @@ public final class CairnMain implements Runnable {
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new CairnMain());
         cl.setUsageHelpWidth(USAGE_WIDTH);
+        // comma-separated options read as given once (--spin-axis=X,Y,Z), not as repeatable
+        cl.setHelpFactory(SplitOptionHelp.factory());
         // Every number option of every command: plain decimal syntax and finite (no hex floats, f/d suffixes,
         // NaN, Infinity or overflow to infinity).
         CommandLine.ITypeConverter<Double> strict = CairnMain::strictDouble;

@@ -96,7 +96,11 @@ public final class SurveyCommand implements Callable<Integer> {
         for (String n : r.notes()) {
             err.println("cairn: note: " + n);
         }
+        boolean replacing = java.nio.file.Files.isDirectory(out);
         SurveyOutputs.writeAll(r, out, VersionProvider.version());
+        if (replacing) {
+            err.println("cairn: replaced the existing output directory " + dev.cairn.io.Messages.path(out));
+        }
         report(spec.commandLine().getOut(), r);
         if (views) {
             renderViews(body, err);

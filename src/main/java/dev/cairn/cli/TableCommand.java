@@ -29,7 +29,9 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
@@ -54,7 +56,9 @@ import picocli.CommandLine.Spec;
         "      --spacing 100 --gradient --out t.npy",
         "  cairn table M.obj --grid sphere --radii 2000:6000:250 \\",
         "      --lat-step 5 --lon-step 5 --out s.npy",
-        "  cairn table M.obj --grid points --points traj.csv --out p.csv"})
+        "  cairn table M.obj --grid points --points traj.csv --out p.csv",
+        "  cairn table M.obj --grid box ... --out big.npy --slurm 64 --slurm-submit",
+        "      (a Slurm job array of 64 shards and a merge job; see docs/cluster.md)"})
 public final class TableCommand implements Callable<Integer> {
     /** Default node limit without --force. */
     public static final int DEFAULT_MAX_NODES = 2_000_000;
@@ -161,6 +165,26 @@ public final class TableCommand implements Callable<Integer> {
         + "study as fractions of the Brillouin radius (default ${DEFAULT-VALUE}).")
     double[] benchSpacings = {0.4, 0.2, 0.1};
 
+    @Option(names = "--slurm", paramLabel = "N", description = "Instead of computing, write a Slurm job array of N "
+        + "shards (1 to " + SlurmArray.MAX_TASKS + ") and a merge job that runs after all of them, in OUT.slurm/ "
+        + "(see docs/cluster.md).")
+    Integer slurm;
+
+    @Option(names = "--slurm-submit", description = "With --slurm: submit both jobs with sbatch and print their ids.")
+    boolean slurmSubmit;
+
+    @Option(names = "--slurm-cpus", paramLabel = "C", description = "With --slurm: CPUs per task (--cpus-per-task; "
+        + "also the --threads of each task unless given; default ${DEFAULT-VALUE}).")
+    int slurmCpus = 1;
+
+    @Option(names = "--slurm-sbatch", paramLabel = "FILE", description = "With --slurm: extra sbatch options for both "
+        + "scripts, one per line (e.g. --partition=NAME, --time=HH:MM:SS, --mem=8G).")
+    Path slurmSbatch;
+
+    @Option(names = "--slurm-sbatch-command", hidden = true, paramLabel = "PROGRAM", description = "The sbatch program "
+        + "(default ${DEFAULT-VALUE}).")
+    String sbatchCommand = "sbatch";
+
     @Option(names = "--stop-after-chunks", hidden = true, paramLabel = "N", description = "Stop after N checkpoint "
         + "chunks as if interrupted (to try --resume; exit code 3).")
     int stopAfterChunks;
@@ -191,9 +215,13 @@ public final class TableCommand implements Callable<Integer> {
             preCheckGrid();
         }
         checkAccuracyOptions(checkSamples, checkCellPoints);
+        checkSlurmOptions();
         BodyModel body = model.load(spinOptions);
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
+        }
+        if (slurm != null) {
+            return slurm(body, err, outw);
         }
         FieldModel field = fieldChoice.build(body, Long.MAX_VALUE, threads, err);
         if (bench) {
@@ -262,6 +290,105 @@ public final class TableCommand implements Callable<Integer> {
                 throw e;
             }
         }
+    }
+
+    /** Refuses --slurm with options it cannot go with, and --slurm-* without --slurm (before the model is loaded). */
+    private void checkSlurmOptions() {
+        if (slurm == null) {
+            refuse(slurmSubmit || slurmSbatch != null || slurmCpus != 1,
+                "--slurm-submit, --slurm-cpus and --slurm-sbatch go with --slurm N");
+            return;
+        }
+        refuse(bench, "--slurm: not with --bench");
+        refuse(shard != null, "--slurm: not with --shard (each task of the array computes one shard)");
+        refuse(gridKind == null, "--slurm: give the grid (--grid ...)");
+        if (slurm < 1 || slurm > SlurmArray.MAX_TASKS) {
+            throw new InputException("--slurm: expected 1 to " + SlurmArray.MAX_TASKS + " array tasks, got " + slurm);
+        }
+        if (slurmCpus < 1 || slurmCpus > SlurmArray.MAX_CPUS) {
+            throw new InputException("--slurm-cpus: expected 1 to " + SlurmArray.MAX_CPUS + " CPUs per task, got "
+                + slurmCpus);
+        }
+        if (out == null) {
+            throw new InputException("--out: missing output file");
+        }
+    }
+
+    /**
+     * Options that are not passed on to the tasks of a Slurm array: they belong to --slurm or are set per task
+     * (--resume is added by the task itself when its checkpoints exist).
+     */
+    private static final java.util.Set<String> NOT_PASSED = java.util.Set.of("--slurm", "--slurm-submit",
+        "--slurm-cpus", "--slurm-sbatch", "--slurm-sbatch-command", "--out", "--format", "--threads", "--shard",
+        "--resume");
+
+    /** --slurm N: writes (and with --slurm-submit submits) the job array and its merge job; computes nothing. */
+    private int slurm(BodyModel body, PrintWriter err, PrintWriter outw) {
+        Grid grid = grid(body);
+        requireGridInRange(grid);
+        if (grid.nodeCount() > maxNodes && !force) {
+            throw new InputException("--grid " + gridKind + ": " + grid.nodeCount() + " nodes is more than the limit of "
+                + maxNodes + "; use --force (or raise --max-nodes) if you mean it");
+        }
+        if (slurm > grid.nodeCount()) {
+            throw new InputException("--slurm: " + slurm + " shards for a grid of " + grid.nodeCount() + " nodes; "
+                + "give at most one shard per node");
+        }
+        String fmt = format != null ? format.toLowerCase(Locale.ROOT) : TableFiles.formatOf(out);
+        if (!fmt.equals(TableFiles.NPY) && !fmt.equals(TableFiles.CSV)) {
+            throw new InputException("--format: unknown format '" + format + "' (use npy or csv)");
+        }
+        dev.cairn.io.RunInputs.requireWritable(out.toAbsolutePath());
+        dev.cairn.io.RunInputs.requireWritable(TableFiles.sidecarPath(out).toAbsolutePath());
+        List<String> sbatchOptions = slurmSbatch != null ? SlurmArray.readOptions(slurmSbatch) : List.of();
+        picocli.CommandLine.ParseResult pr = spec.commandLine().getParseResult();
+        String taskThreads = String.valueOf(pr.hasMatchedOption("--threads") ? threads : slurmCpus);
+        List<String> args = new ArrayList<>(List.of("table", body.source().toAbsolutePath().normalize().toString()));
+        for (picocli.CommandLine.Model.OptionSpec o : pr.matchedOptions()) {
+            if (NOT_PASSED.contains(o.longestName())) {
+                continue;
+            }
+            if (o.arity().max() == 0) {
+                boolean on = Boolean.TRUE.equals(o.getValue());
+                if (o.negatable()) {
+                    args.add(on ? o.longestName() : o.longestName().replaceFirst("^--", "--no-"));
+                } else if (on) {
+                    args.add(o.longestName());
+                }
+                continue;
+            }
+            for (String v : o.originalStringValues()) {
+                // NAME=VALUE, one word: a value that starts with '-' (a box bound) cannot be taken for an option
+                args.add(o.longestName() + "=" + (o.type() == Path.class
+                    ? Path.of(v).toAbsolutePath().normalize().toString() : v));
+            }
+        }
+        args.addAll(List.of("--format", fmt, "--threads", taskThreads));
+        List<String> merge = new ArrayList<>(List.of("--format", fmt, "--threads", taskThreads));
+        if (checkSamples != null) {
+            merge.addAll(List.of("--check-samples", String.valueOf(checkSamples)));
+        }
+        merge.addAll(List.of("--check-cell-points", String.valueOf(checkCellPoints), "--seed", String.valueOf(seed)));
+        SlurmArray job = new SlurmArray(slurm, slurmCpus, SlurmArray.launcher(), args, merge, out, sbatchOptions);
+        job.write();
+        int[] first = TableJob.shardRange((int) grid.nodeCount(), 1, slurm);
+        err.printf(Locale.ROOT, "cairn: wrote %s and %s: %d task(s) x %d CPU(s), about %d of %d nodes each; shards, "
+            + "logs and checkpoints go to %s%n", job.arrayScript().getFileName(), job.mergeScript().getFileName(), slurm,
+            slurmCpus, first[1] - first[0], grid.nodeCount(), job.dir());
+        if (!slurmSubmit) {
+            err.println("cairn: submit with: " + job.submitLine());
+            err.flush();
+            return 0;
+        }
+        err.flush();
+        SlurmArray.Submission s = job.submit(sbatchCommand);
+        err.printf(Locale.ROOT, "cairn: submitted array job %s (%d tasks) and merge job %s (runs after all tasks "
+            + "succeed; writes %s)%n", s.arrayJob(), slurm, s.mergeJob(), out);
+        outw.println("array_job_id " + s.arrayJob());
+        outw.println("merge_job_id " + s.mergeJob());
+        outw.flush();
+        err.flush();
+        return 0;
     }
 
     /**

@@ -49,6 +49,10 @@ public final class TableMergeCommand implements Callable<Integer> {
         + "(default ${DEFAULT-VALUE}; 0 skips it).")
     int checkSamples = AccuracyCheck.DEFAULT_RANDOM_POINTS;
 
+    @Option(names = "--check-cell-points", paramLabel = "N", description = "Random points per cell near the surface "
+        + "in the accuracy report, besides its centre and 6 face centres (default ${DEFAULT-VALUE}, as for 'table').")
+    int checkCellPoints = AccuracyCheck.DEFAULT_RANDOM_PER_CELL;
+
     @Option(names = "--seed", paramLabel = "S", description = "Seed of the accuracy report (default ${DEFAULT-VALUE}).")
     long seed = 1;
 
@@ -66,6 +70,7 @@ public final class TableMergeCommand implements Callable<Integer> {
             throw new InputException("--format: unknown format '" + format + "' (use npy or csv)");
         }
         TableCommand.requireCount("--check-samples", checkSamples, TableCommand.MAX_CHECK_SAMPLES);
+        TableCommand.checkAccuracyOptions(checkSamples, checkCellPoints);
         if (threads < 1) {
             throw new InputException("--threads: must be at least 1, got " + threads);
         }
@@ -158,7 +163,7 @@ public final class TableMergeCommand implements Callable<Integer> {
             ModelLoader.DENSITY_MAX);
         BodyModel body = ModelLoader.load(modelPath, new ModelRequest(unit, density, null, null, null, null));
         AccuracyCheck.BoundReport rep = TableCommand.accuracy(TableFiles.read(out), body.fieldModel(), body.mesh(),
-            AccuracyCheck.Spin.fromMetadata(meta), checkSamples, AccuracyCheck.DEFAULT_RANDOM_PER_CELL, seed,
+            AccuracyCheck.Spin.fromMetadata(meta), checkSamples, checkCellPoints, seed,
             Math.max(1, threads), err);
         if (rep == null) {
             return;

@@ -223,7 +223,10 @@ public final class AccuracyCheck {
             return new Spin(layout.omega(), layout.spinAxis(), layout.centreOfMass());
         }
 
-        /** From a table sidecar ({@code spin.omega_rad_s}, {@code spin.axis}, {@code centre_of_mass_m}). */
+        /**
+         * From a table sidecar ({@code spin.omega_rad_s}, {@code spin.axis}, {@code center_of_mass_m}; sidecars
+         * written before the key was spelled as in every other output carry {@code centre_of_mass_m}, still read).
+         */
         public static Spin fromMetadata(Map<String, Object> meta) {
             Object sp = meta.get("spin");
             double omega = 0;
@@ -234,7 +237,9 @@ public final class AccuracyCheck {
                 }
                 axis = vector(m.get("axis"), axis);
             }
-            return new Spin(omega, axis, vector(meta.get("centre_of_mass_m"), new double[3]));
+            Object com = meta.containsKey("center_of_mass_m") ? meta.get("center_of_mass_m")
+                : meta.get("centre_of_mass_m");
+            return new Spin(omega, axis, vector(com, new double[3]));
         }
 
         private static double[] vector(Object o, double[] dflt) {

@@ -164,7 +164,7 @@ public final class TableBuilder {
         spin.put("period_s", layout.omega() > 0 ? 2 * Math.PI / layout.omega() : null);
         spin.put("axis", List.of(layout.spinAxis()[0], layout.spinAxis()[1], layout.spinAxis()[2]));
         m.put("spin", spin);
-        m.put("centre_of_mass_m", List.of(layout.centreOfMass()[0], layout.centreOfMass()[1],
+        m.put("center_of_mass_m", List.of(layout.centreOfMass()[0], layout.centreOfMass()[1],
             layout.centreOfMass()[2]));
         m.put("frame", "model (body-fixed) frame, metres");
         m.put("grid", layout.grid().toJson());

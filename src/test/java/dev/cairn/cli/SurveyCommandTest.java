@@ -306,6 +306,20 @@ class SurveyCommandTest {
         }
     }
 
+    @Test
+    void saysWhenItReplacesAnExistingOutputDirectory() throws Exception {
+        Path again = dir.resolve("again");
+        StringWriter e1 = new StringWriter();
+        assertEquals(0, run(new StringWriter(), e1, "survey", obj.toString(), "--out", again.toString(), "--threads",
+            "1"), e1.toString());
+        assertFalse(e1.toString().contains("replaced"), e1.toString());
+        StringWriter e2 = new StringWriter();
+        assertEquals(0, run(new StringWriter(), e2, "survey", obj.toString(), "--out", again.toString(), "--threads",
+            "1"), e2.toString());
+        List<String> lines = e2.toString().lines().filter(l -> l.contains("replaced")).toList();
+        assertEquals(List.of("cairn: replaced the existing output directory " + again), lines);
+    }
+
     private static void badOption(String expectInMessage, String... extra) {
         StringWriter o = new StringWriter();
         StringWriter e = new StringWriter();

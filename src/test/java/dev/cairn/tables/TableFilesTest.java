@@ -208,7 +208,7 @@ class TableFilesTest {
         Table t = build(g, TableFiles.CSV, false, 1);
         Map<String, Object> m = t.metadata();
         for (String k : List.of("caution", "conventions", "cairn_version", "created_utc", "model", "G_m3_kg_s2",
-            "gm_m3_s2", "spin", "centre_of_mass_m", "frame", "grid", "columns", "column_units", "shape", "data_format",
+            "gm_m3_s2", "spin", "center_of_mass_m", "frame", "grid", "columns", "column_units", "shape", "data_format",
             "data_sha256", "job_fingerprint")) {
             assertTrue(m.containsKey(k), "sidecar key " + k);
         }
