@@ -1,5 +1,7 @@
 package dev.cairn.viewer;
 
+import dev.cairn.util.ColourRamp;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
