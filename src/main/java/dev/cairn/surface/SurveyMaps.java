@@ -254,21 +254,60 @@ public final class SurveyMaps {
         g.setStroke(new BasicStroke(1.5f));
         int n = Math.min(MARKED_SITES, r.sites.size());
         int elsewhere = 0;
+        FontMetrics fm = g.getFontMetrics();
+        List<LabelPlacer.Label> labels = new ArrayList<>();
+        List<LandingSite> shown = new ArrayList<>();
         for (int k = 0; k < n; k++) {
             LandingSite s = r.sites.get(k);
             if (r.mapLayer[s.facet()] != layer) {
                 elsewhere++;
                 continue;
             }
-            int x = LEFT + (int) Math.round((s.lonDeg() + 180) / 360 * gridW);
-            int y = TOP + (int) Math.round((90 - s.latDeg()) / 180 * gridH);
+            // the circle stands at the aim point (grid coordinates relative to the grid's top-left corner)
+            double x = (s.lonDeg() + 180) / 360 * gridW;
+            double y = (90 - s.latDeg()) / 180 * gridH;
+            labels.add(new LabelPlacer.Label(x, y, fm.stringWidth(String.valueOf(s.rank())) + 2, fm.getAscent()));
+            shown.add(s);
+        }
+        LabelPlacer.Placement[] at = LabelPlacer.place(labels, gridW, gridH, SITE_MARK_RADIUS + 1,
+            SITE_MARK_RADIUS + 1);
+        for (int k = 0; k < shown.size(); k++) {
+            int x = LEFT + (int) Math.round(labels.get(k).x());
+            int y = TOP + (int) Math.round(labels.get(k).y());
             g.setColor(Color.WHITE);
             g.drawOval(x - 6, y - 6, 12, 12);
             g.setColor(Color.BLACK);
             g.drawOval(x - 7, y - 7, 14, 14);
-            g.drawString(String.valueOf(s.rank()), x + 9, y + 4);
+            LabelPlacer.Placement p = at[k];
+            if (!p.placed()) {
+                continue; // no room: the circle alone
+            }
+            int lx = LEFT + (int) Math.round(p.x());
+            int ly = TOP + (int) Math.round(p.y());
+            if (p.ring() > 1) {
+                g.drawLine(x, y, (int) Math.round(LEFT + p.x() + p.width() / 2), (int) Math.round(TOP + p.y()
+                    + p.height() / 2));
+            }
+            haloText(g, String.valueOf(shown.get(k).rank()), lx + 1, ly + fm.getAscent());
         }
         return elsewhere;
+    }
+
+    /** Radius of the site circles on the slope maps, pixels. */
+    private static final int SITE_MARK_RADIUS = 7;
+
+    /** Black text with a white halo, legible on any map colour. */
+    private static void haloText(Graphics2D g, String s, int x, int y) {
+        g.setColor(Color.WHITE);
+        for (int dx = -1; dx <= 1; dx++) {
+            for (int dy = -1; dy <= 1; dy++) {
+                if (dx != 0 || dy != 0) {
+                    g.drawString(s, x + dx, y + dy);
+                }
+            }
+        }
+        g.setColor(Color.BLACK);
+        g.drawString(s, x, y);
     }
 
     /** Legend entry for the hatching of cells with more surface below this layer (only when there are such). */

@@ -49,6 +49,12 @@ public final class SurveyOutputs {
      * nothing but survey outputs (the files written here and PNG views).
      */
     public static List<Path> writeAll(SurveyResult r, Path dir) {
+        return writeAll(r, dir, SurveyMaps.GRID_W);
+    }
+
+    /** As {@link #writeAll(SurveyResult, Path)} with maps {@code mapGridWidth} pixels wide (see {@link SurveyMaps}). */
+    public static List<Path> writeAll(SurveyResult r, Path dir, int mapGridWidth) {
+        SurveyMaps.requireGridWidth(mapGridWidth);
         Path abs = dir.toAbsolutePath().normalize();
         Path parent = abs.getParent();
         String name = abs.getFileName().toString();
@@ -68,7 +74,7 @@ public final class SurveyOutputs {
             out.add(writeJson(r, tmp.resolve(JSON)));
             out.add(writeVtk(r, tmp.resolve(VTK)));
             out.add(writeZonesCsv(r, tmp.resolve(ZONES_CSV)));
-            out.addAll(SurveyMaps.writeAll(r, tmp));
+            out.addAll(SurveyMaps.writeAll(r, tmp, mapGridWidth));
             Path old = null;
             if (Files.exists(abs)) {
                 old = parent.resolve(tmp.getFileName() + ".old");
