@@ -459,6 +459,11 @@ public final class SurveyData {
         return c;
     }
 
+    /** Names of every column of the survey. */
+    public java.util.Set<String> columnNames() {
+        return columns.keySet();
+    }
+
     /** True when the survey has this column. */
     public boolean hasColumn(String name) {
         return columns.containsKey(name);
