@@ -185,7 +185,7 @@ public final class SurveyMaps {
             }
         }
         g.setColor(Color.BLACK);
-        g.drawRect(LEFT, TOP, gridW, gridH);
+        g.drawRect(LEFT - 1, TOP - 1, gridW + 1, gridH + 1); // frame outside the grid: every cell stays visible
         FontMetrics fm = g.getFontMetrics();
         for (int lon = -180; lon <= 180; lon += 30) {
             int x = LEFT + (int) Math.round((lon + 180) / 360.0 * gridW);
@@ -195,7 +195,7 @@ public final class SurveyMaps {
         }
         for (int lat = -90; lat <= 90; lat += 30) {
             int y = TOP + (int) Math.round((90 - lat) / 180.0 * gridH);
-            g.drawLine(LEFT - 5, y, LEFT, y);
+            g.drawLine(LEFT - 6, y, LEFT - 2, y); // outside the grid and its frame
             String s = String.valueOf(lat);
             g.drawString(s, LEFT - 8 - fm.stringWidth(s), y + 4);
         }
@@ -210,8 +210,8 @@ public final class SurveyMaps {
         g.setFont(bold);
         g.drawString(title + " (" + unit + ")", LEFT, 18);
         g.setFont(g.getFont().deriveFont(Font.PLAIN, 11f));
-        g.drawString(mapSubtitle(r, layer), LEFT, 36);
-        g.drawString("Caution: " + SurveyOutputs.CAUTION, LEFT - 60, mapH - 10);
+        fitted(g, mapSubtitle(r, layer), LEFT, 36, mapWidth(gridW) - LEFT - 4);
+        fitted(g, "Caution: " + SurveyOutputs.CAUTION, 10, mapH - 10, mapWidth(gridW) - 20);
         // Colour bar.
         int bx = LEFT + gridW + 30;
         int bw = 18;
@@ -295,6 +295,18 @@ public final class SurveyMaps {
 
     /** Radius of the site circles on the slope maps, pixels. */
     private static final int SITE_MARK_RADIUS = 7;
+
+    /** Draws a line of text, in a smaller font (down to 8 pt) when it would not fit in {@code width} pixels. */
+    private static void fitted(Graphics2D g, String s, int x, int y, int width) {
+        Font keep = g.getFont();
+        float size = keep.getSize2D();
+        while (size > 8 && g.getFontMetrics(keep.deriveFont(size)).stringWidth(s) > width) {
+            size -= 0.5f;
+        }
+        g.setFont(keep.deriveFont(size));
+        g.drawString(s, x, y);
+        g.setFont(keep);
+    }
 
     /** Black text with a white halo, legible on any map colour. */
     private static void haloText(Graphics2D g, String s, int x, int y) {
