@@ -13,7 +13,7 @@ import org.junit.jupiter.api.Test;
  * and renderer give that facet for the same quantity with default limits (3D colours from {@code facets.csv}, map
  * colours from the survey in memory). Measured as the largest 8-bit channel difference over all map pixels; must be
  * 0 (both go through one scale; facets.csv keeps every double exactly). The 3D pixels themselves are checked against
- * these colours in {@link SurveyViewsDisplayTest}. The slope map's site circles and their numbers are drawn over the
+ * these colours in {@link PickAndColourDisplayTest}. The slope map's site circles and their numbers are drawn over the
  * surface: pixels within {@value #MARK_CLEARANCE_PX} pixels of a circled aim point are left out there (counted).
  */
 class ColourConsistencyTest {
@@ -28,7 +28,21 @@ class ColourConsistencyTest {
         return m;
     }
 
-    private static boolean nearMark(java.util.List<double[]> marks, int i, int j) {
+    /** Grid positions of the circled sites of the slope map: the best 10 whose aim facet is on map layer 1. */
+    static java.util.List<double[]> siteMarks(SurveyFixture.Fixture fx) throws java.io.IOException {
+        com.fasterxml.jackson.databind.JsonNode sites = dev.cairn.io.StrictJson.MAPPER.readTree(
+            java.nio.file.Files.readString(fx.dir().resolve("summary.json"))).get("sites");
+        java.util.List<double[]> marks = new java.util.ArrayList<>();
+        for (int k = 0; k < Math.min(10, sites.size()); k++) {
+            if (sites.get(k).get("map_layer").asInt() == 1) {
+                marks.add(new double[] {(sites.get(k).get("lon_deg").asDouble() + 180) / 360 * fx.raster().width(),
+                    (90 - sites.get(k).get("lat_deg").asDouble()) / 180 * fx.raster().height()});
+            }
+        }
+        return marks;
+    }
+
+    static boolean nearMark(java.util.List<double[]> marks, int i, int j) {
         for (double[] m : marks) {
             if (Math.hypot(i - m[0], j - m[1]) < MARK_CLEARANCE_PX) {
                 return true;
@@ -44,16 +58,7 @@ class ColourConsistencyTest {
         Object[][] cases = {{SurveyMaps.SLOPE, Quantity.SLOPE}, {SurveyMaps.G_EFF, Quantity.G_EFF},
             {SurveyMaps.DYNAMIC_HEIGHT, Quantity.DYNAMIC_HEIGHT}};
         int liftOffPixels = 0;
-        // circled sites on the slope map: the best 10 whose aim facet is on map layer 1
-        com.fasterxml.jackson.databind.JsonNode sites = dev.cairn.io.StrictJson.MAPPER.readTree(
-            java.nio.file.Files.readString(fx.dir().resolve("summary.json"))).get("sites");
-        java.util.List<double[]> marks = new java.util.ArrayList<>();
-        for (int k = 0; k < Math.min(10, sites.size()); k++) {
-            if (sites.get(k).get("map_layer").asInt() == 1) {
-                marks.add(new double[] {(sites.get(k).get("lon_deg").asDouble() + 180) / 360 * fx.raster().width(),
-                    (90 - sites.get(k).get("lat_deg").asDouble()) / 180 * fx.raster().height()});
-            }
-        }
+        java.util.List<double[]> marks = siteMarks(fx);
         for (Object[] c : cases) {
             BufferedImage img = fx.map((String) c[0]);
             assertEquals(SurveyMaps.mapWidth(SurveyFixture.MAP_GRID), img.getWidth(), "--map-size honoured");
