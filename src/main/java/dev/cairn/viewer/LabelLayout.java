@@ -11,11 +11,17 @@ import java.util.List;
  * visible side: its facet faces the camera (outward normal · (eye − aim) &gt; 0), it is in front of the camera and
  * inside the viewport, and (for models up to {@link #OCCLUSION_TEST_MAX_FACETS} facets) no other facet lies between
  * the camera and it (ray–triangle test, Möller &amp; Trumbore 1997, J. Graphics Tools 2(1) 21–28). Boxes are then
- * placed by {@link LabelPlacer}: sites ("S1", "S2", ...) first by rank, then zones ("Z1", ...), so no two overlap.
+ * placed by {@link LabelPlacer}: sites ("S1", "S2", ...) first by rank, then zones ("Z1", ...), so no two overlap;
+ * at most {@link #MAX_PER_KIND} of each kind (the best-ranked visible ones).
  */
 final class LabelLayout {
     /** Font size of the labels, pixels. */
     static final double FONT_PX = 15;
+    /**
+     * Most labels of each kind: the best-ranked visible sites and zones up to this many (as the maps circle the best
+     * ten sites); more would bury the surface under text on bodies with hundreds of sites.
+     */
+    static final int MAX_PER_KIND = 20;
     /** Larger models skip the occlusion test (it costs one pass over the facets per label and view change). */
     static final int OCCLUSION_TEST_MAX_FACETS = 200_000;
 
@@ -66,8 +72,9 @@ final class LabelLayout {
     private static void collect(BodyGeometry g, ViewState v, double[] eye, List<SurveyData.Zone> list, String prefix,
                                 double width, double height, List<String> texts, List<Integer> facets,
                                 List<LabelPlacer.Label> labels) {
+        int shown = 0;
         for (SurveyData.Zone z : list) {
-            if (z.aim() == null) {
+            if (z.aim() == null || shown >= MAX_PER_KIND) {
                 continue;
             }
             double[] a = g.toScene(z.aim());
@@ -86,6 +93,7 @@ final class LabelLayout {
             texts.add(text);
             facets.add(f);
             labels.add(new LabelPlacer.Label(px[0], px[1], wh[0], wh[1]));
+            shown++;
         }
     }
 

@@ -52,6 +52,8 @@ class LabelLayoutTest {
                     }
                 }
             }
+            long s = items.stream().filter(i -> i.text().startsWith("S")).count();
+            assertTrue(s <= LabelLayout.MAX_PER_KIND && items.size() - s <= LabelLayout.MAX_PER_KIND, "label cap");
             shownTotal += items.size();
         }
         assertTrue(shownTotal > 0, "some labels shown");
