@@ -26,8 +26,8 @@ final class SurveyInfo {
         if (p != null && p.isObject()) {
             JsonNode ph = p.get("spin_period_h");
             JsonNode ax = p.get("spin_axis");
-            String axis = ax != null && ax.isArray() && ax.size() == 3 ? String.format(Locale.ROOT,
-                " about (%.3g, %.3g, %.3g)", ax.get(0).asDouble(), ax.get(1).asDouble(), ax.get(2).asDouble()) : "";
+            String axis = ax != null && ax.isArray() && ax.size() == 3 ? " about (" + num(ax.get(0).asDouble()) + ", "
+                + num(ax.get(1).asDouble()) + ", " + num(ax.get(2).asDouble()) + ")" : "";
             out.add(ph == null || ph.isNull() ? "no spin" : "spin period " + num(ph.asDouble()) + " h" + axis);
             JsonNode rho = p.get("density_kg_m3");
             JsonNode gm = p.get("gm_m3_s2");
