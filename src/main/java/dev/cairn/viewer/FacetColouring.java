@@ -2,7 +2,6 @@ package dev.cairn.viewer;
 
 import dev.cairn.surface.ColourScale;
 import dev.cairn.util.ColourRamp;
-
 import java.util.ArrayList;
 import java.util.List;
 

@@ -1,7 +1,6 @@
 package dev.cairn.viewer;
 
 import dev.cairn.util.ColourRamp;
-
 import java.util.List;
 
 /**

@@ -1,7 +1,6 @@
 package dev.cairn.viewer;
 
 import dev.cairn.util.ColourRamp;
-
 import javafx.geometry.Insets;
 import javafx.scene.control.Label;
 import javafx.scene.image.ImageView;

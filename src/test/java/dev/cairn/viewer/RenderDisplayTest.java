@@ -1,13 +1,12 @@
 package dev.cairn.viewer;
 
-import dev.cairn.util.ColourRamp;
-
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.sun.javafx.scene.SceneHelper;
 import dev.cairn.mesh.Shapes;
 import dev.cairn.mesh.TriangleMesh;
+import dev.cairn.util.ColourRamp;
 import java.util.EnumSet;
 import java.util.HashMap;
 import java.util.Map;
