@@ -72,6 +72,11 @@ public final class SurveyCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: all processors).")
     int threads = ParallelChunks.defaultThreads();
 
+    @Option(names = "--map-size", paramLabel = "PX", description = "Width of the lat/lon map grid in pixels, "
+        + "one pixel per cell over 360 deg of longitude (height half of it); even, 360 to 4320 (default: 720, "
+        + "0.5 deg per pixel).")
+    int mapSize = dev.cairn.surface.SurveyMaps.GRID_W;
+
     @Option(names = "--views", description = "Also render 3D views (slope and landing zones, iso and spin-pole "
         + "views) to PNG with the 'render' command; needs a display (e.g. xvfb-run), skipped with a warning without.")
     boolean views;
@@ -82,6 +87,7 @@ public final class SurveyCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         System.setProperty("java.awt.headless", "true");
+        dev.cairn.surface.SurveyMaps.requireGridWidth(mapSize); // before the survey: fail fast on a bad size
         SurveyParameters params = parameters();
         BodyModel body = model.load(spinOptions);
         PrintWriter err = spec.commandLine().getErr();
@@ -97,7 +103,7 @@ public final class SurveyCommand implements Callable<Integer> {
             err.println("cairn: note: " + n);
         }
         boolean replacing = java.nio.file.Files.isDirectory(out);
-        SurveyOutputs.writeAll(r, out, VersionProvider.version());
+        SurveyOutputs.writeAll(r, out, VersionProvider.version(), mapSize);
         if (replacing) {
             err.println("cairn: replaced the existing output directory " + dev.cairn.io.Messages.path(out));
         }

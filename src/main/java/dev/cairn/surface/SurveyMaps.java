@@ -2,6 +2,7 @@ package dev.cairn.surface;
 
 import dev.cairn.io.AtomicFiles;
 import dev.cairn.rotation.RotatingFrame;
+import dev.cairn.util.ColourRamp;
 import java.awt.BasicStroke;
 import java.awt.Color;
 import java.awt.Font;
@@ -21,7 +22,10 @@ import javax.imageio.ImageIO;
  * PNG maps of a survey drawn with plain Java2D (no display needed; run the JVM with {@code java.awt.headless=true}
  * when there is no display): slope, effective gravity and dynamic height on a latitude–longitude grid (about the spin
  * pole, see {@link LatLonRaster}) with a colour bar, axis labels and units, and the area-weighted slope histogram.
- * Colour ramps are Cairn's own.
+ * Colours come from {@link ColourScale} (ramps of {@link ColourRamp}), the same scale the 3D viewer and renderer
+ * use, so a facet has the same colour on a map and in a 3D view; lift-off is {@link ColourRamp#LIFT_OFF} on both.
+ * The map grid is {@link #GRID_W} × {@link #GRID_H} cells by default, or any even width from {@link #MIN_GRID_W} to
+ * {@link #MAX_GRID_W} cells (option {@code survey --map-size}); one cell is one pixel.
  */
 public final class SurveyMaps {
     public static final String SLOPE = "map-slope.png";
@@ -29,31 +33,30 @@ public final class SurveyMaps {
     public static final String DYNAMIC_HEIGHT = "map-dynamic-height.png";
     public static final String HISTOGRAM = "hist-slope.png";
 
-    /** Map grid cells (0.5° per cell). */
+    /** Default map grid cells (0.5° per cell). */
     public static final int GRID_W = 720;
     public static final int GRID_H = 360;
-    private static final int LEFT = 70;
-    private static final int TOP = 44;
+    /** Least and largest map grid widths (cells across 360° of longitude; the height is half). */
+    public static final int MIN_GRID_W = 360;
+    public static final int MAX_GRID_W = 4320;
+    /** Left and top margins: the grid cell (i, j) is the image pixel (LEFT + i, TOP + j). */
+    public static final int LEFT = 70;
+    public static final int TOP = 44;
     private static final int RIGHT = 130;
     private static final int BOTTOM = 84;
-    /** Size of a map image, pixels. */
+    /** Size of a map image at the default grid, pixels. */
     public static final int MAP_WIDTH = LEFT + GRID_W + RIGHT;
     public static final int MAP_HEIGHT = TOP + GRID_H + BOTTOM;
     /** Size of the histogram image, pixels. */
     public static final int HIST_WIDTH = 900;
     public static final int HIST_HEIGHT = 500;
 
-    private static final Color NO_DATA = new Color(0x80, 0x80, 0x80);
-    private static final Color LIFT_OFF = new Color(0xE0, 0x2F, 0xC8);
+    private static final Color LIFT_OFF = new Color(ColourRamp.LIFT_OFF);
     /** Hatching of cells whose ray crosses the surface again below the layer shown. */
     private static final Color HIDDEN = new Color(0x10, 0x10, 0x10);
     private static final int HATCH = 6;
     /** Sites circled on the slope maps. */
     static final int MARKED_SITES = 10;
-    /** Sequential ramp: deep indigo, slate blue, sea green, straw, pale cream. */
-    private static final int[] SEQUENTIAL = {0x201A40, 0x2F5A8C, 0x35967A, 0xC9B85A, 0xF6F0D6};
-    /** Diverging ramp for signed values: blue, near-white, brick red. */
-    private static final int[] DIVERGING = {0x23408E, 0x7C9BD0, 0xF1EFEA, 0xD7876E, 0x9E2A22};
 
     private SurveyMaps() {
     }
@@ -64,28 +67,63 @@ public final class SurveyMaps {
      * layers together show every facet (up to {@link LatLonRaster#MAX_LAYERS} layers).
      */
     public static List<Path> writeAll(SurveyResult r, Path dir) {
+        return writeAll(r, dir, GRID_W);
+    }
+
+    /** As {@link #writeAll(SurveyResult, Path)} on a grid {@code gridWidth} cells wide (half as high). */
+    public static List<Path> writeAll(SurveyResult r, Path dir, int gridWidth) {
+        requireGridWidth(gridWidth);
         RotatingFrame frame = new RotatingFrame(r.target.spin(), r.target.centreOfMass());
-        LatLonRaster raster = LatLonRaster.build(r.target.mesh(), frame, GRID_W, GRID_H, r.parameters.threads());
+        LatLonRaster raster = LatLonRaster.build(r.target.mesh(), frame, gridWidth, gridWidth / 2,
+            r.parameters.threads());
         List<Path> out = new ArrayList<>();
-        double[] s = r.slope;
-        double top = Math.min(90, Math.max(2 * r.parameters.maxSlopeDeg(), Math.ceil(percentile(r, s, 0.99) / 5) * 5));
-        double[] ge = r.gEff;
-        double[] h = r.dynamicHeight;
-        double hm = Math.max(Math.abs(min(h)), Math.abs(max(h)));
-        if (!(hm > 0)) {
-            hm = 1;
-        }
+        ColourScale slope = scale(r, ColourScale.SLOPE);
+        ColourScale ge = scale(r, "g_eff_m_s2");
+        ColourScale h = scale(r, "dynamic_height_m");
         for (int layer = 1; layer <= raster.layers(); layer++) {
             String tl = layer == 1 ? "" : ", layer " + layer;
-            out.add(write(dir.resolve(layerFile(SLOPE, layer)), map(r, raster, layer, s, 0, top, SEQUENTIAL,
+            out.add(write(dir.resolve(layerFile(SLOPE, layer)), map(r, raster, layer, r.slope, slope,
                 "Slope" + tl, "deg", true)));
-            out.add(write(dir.resolve(layerFile(G_EFF, layer)), map(r, raster, layer, ge, min(ge), max(ge),
-                SEQUENTIAL, "Effective gravity |g + centrifugal|" + tl, "m/s^2", false)));
-            out.add(write(dir.resolve(layerFile(DYNAMIC_HEIGHT, layer)), map(r, raster, layer, h, -hm, hm, DIVERGING,
+            out.add(write(dir.resolve(layerFile(G_EFF, layer)), map(r, raster, layer, r.gEff, ge,
+                "Effective gravity |g + centrifugal|" + tl, "m/s^2", false)));
+            out.add(write(dir.resolve(layerFile(DYNAMIC_HEIGHT, layer)), map(r, raster, layer, r.dynamicHeight, h,
                 "Dynamic height (0 = mean level)" + tl, "m", false)));
         }
         out.add(write(dir.resolve(HISTOGRAM), histogram(r)));
         return out;
+    }
+
+    /** Refuses a grid width outside [{@link #MIN_GRID_W}, {@link #MAX_GRID_W}] or odd (one-line message). */
+    public static void requireGridWidth(int w) {
+        if (w < MIN_GRID_W || w > MAX_GRID_W || w % 2 != 0) {
+            throw new dev.cairn.io.InputException("--map-size: " + w + " is not an even map width from " + MIN_GRID_W
+                + " to " + MAX_GRID_W + " pixels");
+        }
+    }
+
+    /** Image width of a map on a grid {@code gridWidth} cells wide, pixels. */
+    public static int mapWidth(int gridWidth) {
+        return LEFT + gridWidth + RIGHT;
+    }
+
+    /** Image height of a map on a grid {@code gridWidth} cells wide, pixels. */
+    public static int mapHeight(int gridWidth) {
+        return TOP + gridWidth / 2 + BOTTOM;
+    }
+
+    /**
+     * The colour scale of a per-facet column of the result, with default range (no user limits): the scale the
+     * maps use, and that the 3D views build from {@code facets.csv} for the same column.
+     */
+    public static ColourScale scale(SurveyResult r, String column) {
+        double[] v;
+        switch (column) {
+            case ColourScale.SLOPE: v = r.slope; break;
+            case "g_eff_m_s2": v = r.gEff; break;
+            case "dynamic_height_m": v = r.dynamicHeight; break;
+            default: throw new IllegalArgumentException("no map of column " + column);
+        }
+        return ColourScale.of(column, v, null, null);
     }
 
     /** File of a map for a layer: the name itself for layer 1, {@code map-slope-layer2.png} for layer 2, ... */
@@ -102,68 +140,6 @@ public final class SurveyMaps {
         return file;
     }
 
-    private static double min(double[] v) {
-        double m = Double.POSITIVE_INFINITY;
-        for (double x : v) {
-            if (x < m) {
-                m = x;
-            }
-        }
-        return m;
-    }
-
-    private static double max(double[] v) {
-        double m = Double.NEGATIVE_INFINITY;
-        for (double x : v) {
-            if (x > m) {
-                m = x;
-            }
-        }
-        return m;
-    }
-
-    /** Area-weighted percentile of the finite values below 90 (lift-off excluded). */
-    private static double percentile(SurveyResult r, double[] v, double q) {
-        Integer[] idx = new Integer[r.facets];
-        int n = 0;
-        double total = 0;
-        for (int f = 0; f < r.facets; f++) {
-            if (v[f] <= 90) {
-                idx[n++] = f;
-                total += r.area[f];
-            }
-        }
-        if (n == 0) {
-            return 90;
-        }
-        Integer[] sorted = Arrays.copyOf(idx, n);
-        Arrays.sort(sorted, (a, b) -> Double.compare(v[a], v[b]));
-        double acc = 0;
-        for (Integer f : sorted) {
-            acc += r.area[f];
-            if (acc >= q * total) {
-                return v[f];
-            }
-        }
-        return v[sorted[n - 1]];
-    }
-
-    /** Colour of {@code t} in [0, 1] on a ramp of evenly spaced control colours. */
-    static Color ramp(int[] stops, double t) {
-        if (Double.isNaN(t)) {
-            return NO_DATA;
-        }
-        double x = Math.max(0, Math.min(1, t)) * (stops.length - 1);
-        int i = Math.min(stops.length - 2, (int) Math.floor(x));
-        double u = x - i;
-        int a = stops[i];
-        int b = stops[i + 1];
-        int rr = (int) Math.round(((a >> 16) & 255) * (1 - u) + ((b >> 16) & 255) * u);
-        int gg = (int) Math.round(((a >> 8) & 255) * (1 - u) + ((b >> 8) & 255) * u);
-        int bb = (int) Math.round((a & 255) * (1 - u) + (b & 255) * u);
-        return new Color(rr, gg, bb);
-    }
-
     private static Graphics2D graphics(BufferedImage img) {
         Graphics2D g = img.createGraphics();
         g.setRenderingHint(RenderingHints.KEY_ANTIALIASING, RenderingHints.VALUE_ANTIALIAS_ON);
@@ -175,14 +151,7 @@ public final class SurveyMaps {
     }
 
     private static String fmt(double v) {
-        double a = Math.abs(v);
-        if (v == 0) { // exact zero prints as 0
-            return "0";
-        }
-        if (a >= 1e4 || a < 1e-3) {
-            return String.format(Locale.ROOT, "%.2e", v);
-        }
-        return String.format(Locale.ROOT, a >= 100 ? "%.0f" : a >= 10 ? "%.1f" : a >= 1 ? "%.2f" : "%.4f", v);
+        return ColourScale.format(v);
     }
 
     private static String subtitle(SurveyResult r) {
@@ -191,90 +160,86 @@ public final class SurveyMaps {
         return r.target.name() + ", " + r.facets + " facets, " + spin;
     }
 
-    private static BufferedImage map(SurveyResult r, LatLonRaster raster, int layer, double[] v, double lo, double hi,
-                                     int[] stops, String title, String unit, boolean slopeMap) {
-        BufferedImage img = new BufferedImage(MAP_WIDTH, MAP_HEIGHT, BufferedImage.TYPE_INT_RGB);
+    private static BufferedImage map(SurveyResult r, LatLonRaster raster, int layer, double[] v, ColourScale scale,
+                                     String title, String unit, boolean slopeMap) {
+        final int gridW = raster.width();
+        final int gridH = raster.height();
+        final int mapH = mapHeight(gridW);
+        BufferedImage img = new BufferedImage(mapWidth(gridW), mapH, BufferedImage.TYPE_INT_RGB);
         Graphics2D g = graphics(img);
-        double span = hi > lo ? hi - lo : 1;
-        for (int j = 0; j < raster.height(); j++) {
-            for (int i = 0; i < raster.width(); i++) {
+        double lo = scale.min();
+        double hi = scale.max();
+        double span = hi - lo;
+        for (int j = 0; j < gridH; j++) {
+            for (int i = 0; i < gridW; i++) {
                 int f = raster.facet(i, j, layer);
-                Color c;
+                int c;
                 if (raster.crossings(i, j) > layer && (i + j) % HATCH == 0) {
-                    c = HIDDEN; // more surface lies below this layer here
+                    c = HIDDEN.getRGB(); // more surface lies below this layer here
                 } else if (f < 0) {
-                    c = NO_DATA;
-                } else if (slopeMap && r.liftOff[f]) {
-                    c = LIFT_OFF;
+                    c = ColourRamp.NO_DATA;
                 } else {
-                    c = ramp(stops, (v[f] - lo) / span);
+                    c = scale.argb(v[f], r.liftOff[f]);
                 }
-                img.setRGB(LEFT + i, TOP + j, c.getRGB());
+                img.setRGB(LEFT + i, TOP + j, c);
             }
         }
         g.setColor(Color.BLACK);
-        g.drawRect(LEFT, TOP, GRID_W, GRID_H);
+        g.drawRect(LEFT - 1, TOP - 1, gridW + 1, gridH + 1); // frame outside the grid: every cell stays visible
         FontMetrics fm = g.getFontMetrics();
         for (int lon = -180; lon <= 180; lon += 30) {
-            int x = LEFT + (int) Math.round((lon + 180) / 360.0 * GRID_W);
-            g.drawLine(x, TOP + GRID_H, x, TOP + GRID_H + 5);
+            int x = LEFT + (int) Math.round((lon + 180) / 360.0 * gridW);
+            g.drawLine(x, TOP + gridH, x, TOP + gridH + 5);
             String s = String.valueOf(lon);
-            g.drawString(s, x - fm.stringWidth(s) / 2, TOP + GRID_H + 18);
+            g.drawString(s, x - fm.stringWidth(s) / 2, TOP + gridH + 18);
         }
         for (int lat = -90; lat <= 90; lat += 30) {
-            int y = TOP + (int) Math.round((90 - lat) / 180.0 * GRID_H);
-            g.drawLine(LEFT - 5, y, LEFT, y);
+            int y = TOP + (int) Math.round((90 - lat) / 180.0 * gridH);
+            g.drawLine(LEFT - 6, y, LEFT - 2, y); // outside the grid and its frame
             String s = String.valueOf(lat);
             g.drawString(s, LEFT - 8 - fm.stringWidth(s), y + 4);
         }
         String xl = "East longitude (deg)";
-        g.drawString(xl, LEFT + GRID_W / 2 - fm.stringWidth(xl) / 2, TOP + GRID_H + 36);
+        g.drawString(xl, LEFT + gridW / 2 - fm.stringWidth(xl) / 2, TOP + gridH + 36);
         AffineTransform keep = g.getTransform();
         g.rotate(-Math.PI / 2);
         String yl = "Latitude (deg)";
-        g.drawString(yl, -(TOP + GRID_H / 2) - fm.stringWidth(yl) / 2, 22);
+        g.drawString(yl, -(TOP + gridH / 2) - fm.stringWidth(yl) / 2, 22);
         g.setTransform(keep);
         Font bold = g.getFont().deriveFont(Font.BOLD, 14f);
         g.setFont(bold);
         g.drawString(title + " (" + unit + ")", LEFT, 18);
         g.setFont(g.getFont().deriveFont(Font.PLAIN, 11f));
-        g.drawString(mapSubtitle(r, layer), LEFT, 36);
-        g.drawString("Caution: " + SurveyOutputs.CAUTION, LEFT - 60, MAP_HEIGHT - 10);
+        fitted(g, mapSubtitle(r, layer), LEFT, 36, mapWidth(gridW) - LEFT - 4);
+        fitted(g, "Caution: " + SurveyOutputs.CAUTION, 10, mapH - 10, mapWidth(gridW) - 20);
         // Colour bar.
-        int bx = LEFT + GRID_W + 30;
+        int bx = LEFT + gridW + 30;
         int bw = 18;
-        for (int y = 0; y < GRID_H; y++) {
-            g.setColor(ramp(stops, 1 - (double) y / (GRID_H - 1)));
+        for (int y = 0; y < gridH; y++) {
+            g.setColor(new Color(scale.ramp().argb(1 - (double) y / (gridH - 1))));
             g.fillRect(bx, TOP + y, bw, 1);
         }
         g.setColor(Color.BLACK);
-        g.drawRect(bx, TOP, bw, GRID_H);
+        g.drawRect(bx, TOP, bw, gridH);
         g.setFont(g.getFont().deriveFont(Font.PLAIN, 11f));
         fm = g.getFontMetrics();
-        double step = niceCeil(span / 6);
-        // Ticks by an integer count, never by floating-point progress (a step below one ulp of lo would never end).
-        double k0 = Math.ceil(lo / step);
-        double k1 = Math.floor((hi + 1e-9 * span) / step);
-        long nTicks = k1 >= k0 && k1 - k0 < MAX_TICKS ? (long) (k1 - k0) + 1 : 0;
-        for (long i = 0; i < nTicks; i++) {
-            double val = (k0 + i) * step;
-            double tick = Math.abs(val) < 1e-9 * step ? 0 : val; // print -0 as 0
-            int y = TOP + GRID_H - (int) Math.round(GRID_H * (tick - lo) / span);
+        // the same ticks and tick format as the viewer's legend (ColourScale)
+        for (double tick : ColourScale.ticks(lo, hi)) {
+            int y = TOP + gridH - (int) Math.round(gridH * (tick - lo) / span);
             g.drawLine(bx + bw, y, bx + bw + 4, y);
-            boolean top = tick + step > hi + 1e-9 * span;
-            g.drawString(fmt(tick) + (top && slopeMap && hi < 90 ? "+" : ""), bx + bw + 6, y + 4);
+            g.drawString(fmt(tick), bx + bw + 6, y + 4);
         }
         g.drawString(unit, bx, TOP - 6);
         if (slopeMap) {
             g.setColor(LIFT_OFF);
-            g.fillRect(bx, TOP + GRID_H + 8, bw, 10);
+            g.fillRect(bx, TOP + gridH + 8, bw, 10);
             g.setColor(Color.BLACK);
-            g.drawString("lift-off", bx + bw + 4, TOP + GRID_H + 17);
-            int hidden = markSites(g, r, layer);
+            g.drawString("lift-off (> 90)", bx + bw + 4, TOP + gridH + 17);
+            int hidden = markSites(g, r, layer, gridW, gridH);
             g.setColor(Color.BLACK);
-            g.drawString("O n = site n", bx - 8, TOP + GRID_H + 34);
+            g.drawString("O n = site n", bx - 8, TOP + gridH + 34);
             g.drawString(hidden == 0 ? "(aim point)" : hidden + (layer == 1 ? " on layer maps" : " on other layers"),
-                bx - 8, TOP + GRID_H + 48);
+                bx - 8, TOP + gridH + 48);
         }
         hiddenLegend(g, r, raster, layer, bx, bw);
         g.dispose();
@@ -285,33 +250,85 @@ public final class SurveyMaps {
      * Circles the best {@value #MARKED_SITES} sites whose aim facet this layer shows (map layer of the facet, see
      * {@link LatLonRaster#facetLayers}); returns how many of them are shown on other layers instead.
      */
-    private static int markSites(Graphics2D g, SurveyResult r, int layer) {
+    private static int markSites(Graphics2D g, SurveyResult r, int layer, int gridW, int gridH) {
         g.setStroke(new BasicStroke(1.5f));
         int n = Math.min(MARKED_SITES, r.sites.size());
         int elsewhere = 0;
+        FontMetrics fm = g.getFontMetrics();
+        List<LabelPlacer.Label> labels = new ArrayList<>();
+        List<LandingSite> shown = new ArrayList<>();
         for (int k = 0; k < n; k++) {
             LandingSite s = r.sites.get(k);
             if (r.mapLayer[s.facet()] != layer) {
                 elsewhere++;
                 continue;
             }
-            int x = LEFT + (int) Math.round((s.lonDeg() + 180) / 360 * GRID_W);
-            int y = TOP + (int) Math.round((90 - s.latDeg()) / 180 * GRID_H);
+            // the circle stands at the aim point (grid coordinates relative to the grid's top-left corner)
+            double x = (s.lonDeg() + 180) / 360 * gridW;
+            double y = (90 - s.latDeg()) / 180 * gridH;
+            labels.add(new LabelPlacer.Label(x, y, fm.stringWidth(String.valueOf(s.rank())) + 2, fm.getAscent()));
+            shown.add(s);
+        }
+        LabelPlacer.Placement[] at = LabelPlacer.place(labels, gridW, gridH, SITE_MARK_RADIUS + 1,
+            SITE_MARK_RADIUS + 1);
+        for (int k = 0; k < shown.size(); k++) {
+            int x = LEFT + (int) Math.round(labels.get(k).x());
+            int y = TOP + (int) Math.round(labels.get(k).y());
             g.setColor(Color.WHITE);
             g.drawOval(x - 6, y - 6, 12, 12);
             g.setColor(Color.BLACK);
             g.drawOval(x - 7, y - 7, 14, 14);
-            g.drawString(String.valueOf(s.rank()), x + 9, y + 4);
+            LabelPlacer.Placement p = at[k];
+            if (!p.placed()) {
+                continue; // no room: the circle alone
+            }
+            int lx = LEFT + (int) Math.round(p.x());
+            int ly = TOP + (int) Math.round(p.y());
+            if (p.ring() > 1) {
+                g.drawLine(x, y, (int) Math.round(LEFT + p.x() + p.width() / 2), (int) Math.round(TOP + p.y()
+                    + p.height() / 2));
+            }
+            haloText(g, String.valueOf(shown.get(k).rank()), lx + 1, ly + fm.getAscent());
         }
         return elsewhere;
     }
 
+    /** Radius of the site circles on the slope maps, pixels. */
+    private static final int SITE_MARK_RADIUS = 7;
+
+    /** Draws a line of text, in a smaller font (down to 8 pt) when it would not fit in {@code width} pixels. */
+    private static void fitted(Graphics2D g, String s, int x, int y, int width) {
+        Font keep = g.getFont();
+        float size = keep.getSize2D();
+        while (size > 8 && g.getFontMetrics(keep.deriveFont(size)).stringWidth(s) > width) {
+            size -= 0.5f;
+        }
+        g.setFont(keep.deriveFont(size));
+        g.drawString(s, x, y);
+        g.setFont(keep);
+    }
+
+    /** Black text with a white halo, legible on any map colour. */
+    private static void haloText(Graphics2D g, String s, int x, int y) {
+        g.setColor(Color.WHITE);
+        for (int dx = -1; dx <= 1; dx++) {
+            for (int dy = -1; dy <= 1; dy++) {
+                if (dx != 0 || dy != 0) {
+                    g.drawString(s, x + dx, y + dy);
+                }
+            }
+        }
+        g.setColor(Color.BLACK);
+        g.drawString(s, x, y);
+    }
+
     /** Legend entry for the hatching of cells with more surface below this layer (only when there are such). */
     private static void hiddenLegend(Graphics2D g, SurveyResult r, LatLonRaster raster, int layer, int bx, int bw) {
+        int gridH = raster.height();
         if (raster.layers() <= layer) {
             return;
         }
-        int y = TOP + GRID_H + 55;
+        int y = TOP + gridH + 55;
         g.setColor(Color.WHITE);
         g.fillRect(bx, y, bw, 10);
         g.setColor(HIDDEN);
@@ -353,6 +370,7 @@ public final class SurveyMaps {
 
     /** Area-weighted slope histogram: 2.5° bins 0–90° plus one bar for &gt; 90° (lift-off). */
     private static BufferedImage histogram(SurveyResult r) {
+        ColourScale slope = scale(r, ColourScale.SLOPE);
         int bins = 36;
         double[] h = new double[bins + 1];
         double total = 0;
@@ -379,7 +397,8 @@ public final class SurveyMaps {
             int x0 = l + (int) Math.round(b * bw);
             int x1 = l + (int) Math.round((b + 1) * bw);
             int y = t + hh - (int) Math.round(h[b] / ymax * hh);
-            g.setColor(b == bins ? LIFT_OFF : ramp(SEQUENTIAL, 0.25 + 0.5 * b / bins));
+            // each bar in the slope map's colour of its bin centre; the lift-off bar in the lift-off colour
+            g.setColor(new Color(b == bins ? ColourRamp.LIFT_OFF : slope.rampArgb((b + 0.5) * 2.5)));
             g.fillRect(x0, y, Math.max(1, x1 - x0 - 1), t + hh - y);
         }
         g.setColor(Color.BLACK);
@@ -422,9 +441,6 @@ public final class SurveyMaps {
         g.dispose();
         return img;
     }
-
-    /** Most colour-bar ticks drawn (about six are asked for). */
-    private static final int MAX_TICKS = 50;
 
     private static double niceCeil(double v) {
         if (!(v > 0)) {

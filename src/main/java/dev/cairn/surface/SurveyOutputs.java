@@ -53,7 +53,7 @@ public final class SurveyOutputs {
      * nothing but survey outputs (the files written here and PNG views).
      */
     public static List<Path> writeAll(SurveyResult r, Path dir) {
-        return writeAll(r, dir, "unknown");
+        return writeAll(r, dir, "unknown", SurveyMaps.GRID_W);
     }
 
     /**
@@ -61,6 +61,15 @@ public final class SurveyOutputs {
      * {@code surface.vtk} and {@code facets.csv.json}.
      */
     public static List<Path> writeAll(SurveyResult r, Path dir, String version) {
+        return writeAll(r, dir, version, SurveyMaps.GRID_W);
+    }
+
+    /**
+     * As {@link #writeAll(SurveyResult, Path, String)} with maps {@code mapGridWidth} pixels wide (see
+     * {@link SurveyMaps}).
+     */
+    public static List<Path> writeAll(SurveyResult r, Path dir, String version, int mapGridWidth) {
+        SurveyMaps.requireGridWidth(mapGridWidth);
         Path abs = dir.toAbsolutePath().normalize();
         Path parent = abs.getParent();
         String name = abs.getFileName().toString();
@@ -83,7 +92,7 @@ public final class SurveyOutputs {
             out.add(writeJson(r, tmp.resolve(JSON)));
             out.add(writeVtk(r, tmp.resolve(VTK), meta));
             out.add(writeZonesCsv(r, tmp.resolve(ZONES_CSV)));
-            out.addAll(SurveyMaps.writeAll(r, tmp));
+            out.addAll(SurveyMaps.writeAll(r, tmp, mapGridWidth));
             Path old = null;
             if (Files.exists(abs)) {
                 old = parent.resolve(tmp.getFileName() + ".old");

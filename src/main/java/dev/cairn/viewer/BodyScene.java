@@ -60,6 +60,12 @@ public final class BodyScene {
     private SurveyData survey;
     private IntConsumer pickListener = f -> { };
     private int lastPick = -1;
+    private final Group highlight = new Group();
+    private int highlighted = -1;
+    /** Colour of the picked-facet highlight: bright cyan (unlit, so it reads the same in both light modes). */
+    public static final Color HIGHLIGHT = Color.rgb(0, 235, 255);
+    /** Outward offset of the highlight along the facet normal, fraction of the body radius. */
+    static final double HIGHLIGHT_LIFT = 0.004;
 
     /**
      * Builds the scene for a body at a viewport size.
@@ -102,7 +108,8 @@ public final class BodyScene {
         camera.setFieldOfView(ViewState.FOV_DEG);
         camera.setVerticalFieldOfView(true);
         camera.getTransforms().add(cameraPose);
-        Group world = new Group(surface, overlayRoot, camera, ambient, key);
+        highlight.setMouseTransparent(true);
+        Group world = new Group(surface, overlayRoot, highlight, camera, ambient, key);
         if (proxyView != null) {
             world.getChildren().add(proxyView);
         }
@@ -327,7 +334,72 @@ public final class BodyScene {
     private void pick(PickResult r) {
         if (r != null && r.getIntersectedNode() == surface && r.getIntersectedFace() >= 0) {
             lastPick = r.getIntersectedFace(); // faces are in OBJ order
+            setHighlight(lastPick);
             pickListener.accept(lastPick);
         }
+    }
+
+    /**
+     * Marks facet {@code f} (OBJ order; -1 clears): a copy of the triangle lifted {@link #HIGHLIGHT_LIFT} of the
+     * radius along its outward normal, filled in {@link #HIGHLIGHT} (unlit) and outlined in black, so it stands above
+     * the surface in the depth test and is seen wherever the facet is.
+     */
+    public void setHighlight(int f) {
+        highlight.getChildren().clear();
+        highlighted = f;
+        if (f < 0) {
+            return;
+        }
+        float[] tri = highlightTriangle(f);
+        TriangleMesh m = new TriangleMesh();
+        m.getPoints().setAll(tri);
+        m.getTexCoords().setAll(0.5f, 0.5f);
+        m.getFaces().setAll(0, 0, 1, 0, 2, 0);
+        MeshView fill = new MeshView(m);
+        fill.setMaterial(Lines.material(HIGHLIGHT));
+        fill.setCullFace(CullFace.BACK);
+        fill.setMouseTransparent(true);
+        float[] rim = new float[18];
+        for (int k = 0; k < 3; k++) {
+            int a = k;
+            int b = (k + 1) % 3;
+            System.arraycopy(tri, 3 * a, rim, 6 * k, 3);
+            System.arraycopy(tri, 3 * b, rim, 6 * k + 3, 3);
+        }
+        highlight.getChildren().addAll(fill, Lines.of(rim, Color.BLACK));
+    }
+
+    /** The facet highlighted, or -1. */
+    public int highlighted() {
+        return highlighted;
+    }
+
+    /** The highlight triangle's corners, scene frame: the facet's vertices lifted along its outward normal. */
+    float[] highlightTriangle(int f) {
+        int[] t = geometry.mesh().tri();
+        double[] xyz = geometry.mesh().xyz();
+        double[] c = geometry.centreOfMass();
+        double[][] v = new double[3][];
+        for (int k = 0; k < 3; k++) {
+            int i = 3 * t[3 * f + k];
+            v[k] = new double[] {xyz[i] - c[0], xyz[i + 1] - c[1], xyz[i + 2] - c[2]};
+        }
+        // outward normal of a counter-clockwise (seen from outside) facet: (v1 - v0) x (v2 - v0), normalised
+        double ax = v[1][0] - v[0][0];
+        double ay = v[1][1] - v[0][1];
+        double az = v[1][2] - v[0][2];
+        double bx = v[2][0] - v[0][0];
+        double by = v[2][1] - v[0][1];
+        double bz = v[2][2] - v[0][2];
+        double[] n = {ay * bz - az * by, az * bx - ax * bz, ax * by - ay * bx};
+        double len = Math.sqrt(n[0] * n[0] + n[1] * n[1] + n[2] * n[2]);
+        double lift = len > 0 ? HIGHLIGHT_LIFT * geometry.radius() / len : 0;
+        float[] out = new float[9];
+        for (int k = 0; k < 3; k++) {
+            for (int q = 0; q < 3; q++) {
+                out[3 * k + q] = (float) (v[k][q] + lift * n[q]);
+            }
+        }
+        return out;
     }
 }

@@ -1,5 +1,7 @@
 package dev.cairn.viewer;
 
+import dev.cairn.util.ColourRamp;
+
 /**
  * User limits of the colour range. A null bound is automatic (the data's finite minimum or maximum). With a
  * user-set upper bound on a sequential quantity, values above it show {@link ColourRamp#WARNING} (e.g. slopes

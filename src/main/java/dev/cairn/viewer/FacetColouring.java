@@ -1,9 +1,15 @@
 package dev.cairn.viewer;
 
+import dev.cairn.surface.ColourScale;
+import dev.cairn.util.ColourRamp;
 import java.util.ArrayList;
 import java.util.List;
 
-/** Maps a surveyed quantity to one sRGB colour per facet ({@code 0xAARRGGBB}) and describes it as a {@link Legend}. */
+/**
+ * Maps a surveyed quantity to one sRGB colour per facet ({@code 0xAARRGGBB}) and describes it as a {@link Legend}.
+ * Continuous quantities go through {@link ColourScale}, the same scale the survey's PNG maps use, so a facet has the
+ * same colour on the map and in the 3D view; lift-off is {@link ColourRamp#LIFT_OFF} in both.
+ */
 public final class FacetColouring {
     private FacetColouring() {
     }
@@ -24,70 +30,35 @@ public final class FacetColouring {
             case NONE: {
                 java.util.Arrays.fill(out, ColourRamp.PLAIN);
                 return new Result(out, new Legend(quantity.label(), "", quantity.kind(), Double.NaN, Double.NaN,
-                    false, List.of()));
+                    false, List.of(), false));
             }
             case CATEGORY:
                 return categories(survey.column(quantity.column()), quantity, out);
             default:
-                return continuous(survey.column(quantity.column()), quantity, limits, out);
+                return continuous(survey.column(quantity.column()), quantity, limits, out,
+                    survey.hasColumn("lift_off") ? survey.column("lift_off") : null);
         }
     }
 
-    private static Result continuous(double[] v, Quantity q, ColourLimits limits, int[] out) {
-        double lo = Double.POSITIVE_INFINITY;
-        double hi = Double.NEGATIVE_INFINITY;
-        for (double x : v) {
-            if (Double.isFinite(x)) {
-                lo = Math.min(lo, x);
-                hi = Math.max(hi, x);
-            }
-        }
-        if (lo > hi) { // no finite value at all
-            lo = 0;
-            hi = 1;
-        }
-        if (limits.min() != null) {
-            lo = limits.min();
-        }
-        if (limits.max() != null) {
-            hi = limits.max();
-        }
-        // a signed quantity uses the diverging ramp only when its range spans zero; one-signed data reads better
-        // on the sequential ramp
-        boolean diverging = q.kind() == Quantity.Kind.DIVERGING && lo < 0 && hi > 0;
-        if (diverging) {
-            double m = Math.max(Math.abs(lo), Math.abs(hi));
-            if (!(m > 0)) {
-                m = 1;
-            }
-            lo = -m;
-            hi = m;
-        } else if (!(hi > lo)) {
-            hi = lo + (lo == 0 ? 1 : Math.abs(lo) * 1e-6);
-        }
-        boolean warn = !diverging && limits.max() != null;
-        ColourRamp ramp = diverging ? ColourRamp.DIVERGING : ColourRamp.SEQUENTIAL;
-        double inv = 1.0 / (hi - lo);
+    private static Result continuous(double[] v, Quantity q, ColourLimits limits, int[] out, double[] lift) {
+        ColourScale scale = ColourScale.of(q.column(), v, limits.min(), limits.max());
         for (int f = 0; f < out.length; f++) {
-            double x = v[f];
-            if (warn && x > hi) {
-                out[f] = ColourRamp.WARNING;
-            } else {
-                out[f] = ramp.argb((x - lo) * inv); // NaN maps to NO_DATA
-            }
+            out[f] = scale.argb(v[f], lift != null && lift[f] > 0.5);
         }
+        boolean marks = scale.marksLiftOff() && lift != null;
         return new Result(out, new Legend(q.label(), q.units(),
-            diverging ? Quantity.Kind.DIVERGING : Quantity.Kind.SEQUENTIAL, lo, hi, warn, List.of()));
+            scale.diverging() ? Quantity.Kind.DIVERGING : Quantity.Kind.SEQUENTIAL, scale.min(), scale.max(),
+            scale.warnAbove(), List.of(), marks));
     }
 
     private static Result categories(double[] v, Quantity q, int[] out) {
         List<Legend.Swatch> sw = new ArrayList<>();
         if (q == Quantity.LIFT_OFF) {
             for (int f = 0; f < out.length; f++) {
-                out[f] = Double.isNaN(v[f]) ? ColourRamp.NO_DATA : v[f] > 0.5 ? ColourRamp.WARNING : ColourRamp.NEUTRAL;
+                out[f] = Double.isNaN(v[f]) ? ColourRamp.NO_DATA : v[f] > 0.5 ? ColourRamp.LIFT_OFF : ColourRamp.NEUTRAL;
             }
             sw.add(new Legend.Swatch("stays down", ColourRamp.NEUTRAL));
-            sw.add(new Legend.Swatch("lifts off", ColourRamp.WARNING));
+            sw.add(new Legend.Swatch("lifts off", ColourRamp.LIFT_OFF));
         } else {
             int maxRank = 0;
             for (int f = 0; f < out.length; f++) {
@@ -104,6 +75,6 @@ public final class FacetColouring {
                 sw.add(new Legend.Swatch("(colours repeat after 8)", ColourRamp.NEUTRAL));
             }
         }
-        return new Result(out, new Legend(q.label(), q.units(), q.kind(), Double.NaN, Double.NaN, false, sw));
+        return new Result(out, new Legend(q.label(), q.units(), q.kind(), Double.NaN, Double.NaN, false, sw, false));
     }
 }

@@ -1,6 +1,6 @@
 package dev.cairn.viewer;
 
-import java.util.Locale;
+import dev.cairn.util.ColourRamp;
 import javafx.geometry.Insets;
 import javafx.scene.control.Label;
 import javafx.scene.image.ImageView;
@@ -39,6 +39,9 @@ final class LegendView extends VBox {
             getChildren().add(bar(ramp, legend.min(), legend.max()));
             if (legend.kind() == Quantity.Kind.DIVERGING) {
                 getChildren().add(label("centred on zero", 12, false));
+            }
+            if (legend.liftOff()) {
+                getChildren().add(swatchRow(ColourRamp.LIFT_OFF, "lift-off (above 90°)"));
             }
             getChildren().add(swatchRow(ColourRamp.NO_DATA, "no value"));
         } else if (!legend.categories().isEmpty()) {
@@ -98,19 +101,8 @@ final class LegendView extends VBox {
         return Color.rgb((argb >> 16) & 0xFF, (argb >> 8) & 0xFF, argb & 0xFF);
     }
 
-    /** Four significant digits, no exponent for everyday magnitudes. */
+    /** The tick format of the maps ({@link dev.cairn.surface.ColourScale#format}). */
     static String format(double v) {
-        if (Double.isNaN(v)) {
-            return "–";
-        }
-        double a = Math.abs(v);
-        if (a != 0 && (a < 1e-3 || a >= 1e6)) {
-            return String.format(Locale.ROOT, "%.3e", v);
-        }
-        String s = String.format(Locale.ROOT, "%.4g", v);
-        if (s.contains(".") && !s.contains("e")) {
-            s = s.replaceAll("0+$", "").replaceAll("\\.$", "");
-        }
-        return s;
+        return dev.cairn.surface.ColourScale.format(v);
     }
 }

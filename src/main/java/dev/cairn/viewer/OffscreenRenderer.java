@@ -25,7 +25,7 @@ public final class OffscreenRenderer {
     /** Width of the legend column, pixels. */
     public static final int LEGEND_WIDTH = 240;
     /** Height of the footer, pixels. */
-    public static final int FOOTER_HEIGHT = 72;
+    public static final int FOOTER_HEIGHT = 92;
     static final Color PANEL = Color.rgb(36, 38, 44);
 
     private OffscreenRenderer() {
@@ -65,11 +65,14 @@ public final class OffscreenRenderer {
         legend.setBackground(new javafx.scene.layout.Background(new javafx.scene.layout.BackgroundFill(PANEL, null,
             null)));
         Label l1 = LegendView.label(q.geometry().name() + "  ·  " + q.quantity().label() + "  ·  view from "
-            + q.view().cliName() + "  ·  " + q.geometry().mesh().facetCount() + " facets  ·  Cairn", 13, false);
+            + q.view().cliName() + "  ·  " + q.geometry().mesh().facetCount() + " facets  ·  Cairn " + dev.cairn.cli.VersionProvider.version(), 13, false);
+        Label lp = LegendView.label(q.survey() == null ? "no survey" : q.survey().parametersLine(), 12, false);
+        lp.setWrapText(true);
+        lp.setMaxWidth(q.width() - 24);
         Label l2 = LegendView.label(Caution.TEXT, 12, false);
         l2.setWrapText(true);
         l2.setMaxWidth(q.width() - 24);
-        VBox footer = new VBox(4, l1, l2);
+        VBox footer = new VBox(4, l1, lp, l2);
         footer.setPadding(new Insets(8, 12, 8, 12));
         footer.setPrefHeight(FOOTER_HEIGHT);
         footer.setMinHeight(FOOTER_HEIGHT);

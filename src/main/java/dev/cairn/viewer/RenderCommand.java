@@ -37,8 +37,9 @@ public final class RenderCommand implements Callable<Integer> {
     Path survey;
 
     @Option(names = "--quantity", paramLabel = "NAME", defaultValue = "slope",
-        description = "slope, g-eff, potential-eff, dynamic-height, lift-off, sites, zones or none "
-            + "(default: ${DEFAULT-VALUE}).")
+        description = "slope, g-eff, g, g-eff-normal, g-eff-tangential, g-normal, g-tangential, potential-eff, "
+            + "potential, dynamic-height, escape-speed, escape-speed-min, hover-accel, roughness, disc-max-slope, "
+            + "area, lift-off, sites, zones or none (default: ${DEFAULT-VALUE}).")
     String quantity;
 
     @Option(names = "--view", paramLabel = "VIEW", defaultValue = "iso",
@@ -99,6 +100,10 @@ public final class RenderCommand implements Callable<Integer> {
         if (Boolean.getBoolean("cairn.timing")) {
             err.printf(java.util.Locale.ROOT, "cairn: timing: model load + survey %.2f s%n",
                 (System.nanoTime() - tLoad) / 1e9);
+        }
+        if (data != null && !q.availableIn(data)) {
+            throw new InputException("--quantity " + q.cliName() + ": the survey has no column '" + q.column()
+                + "' (written by a newer survey: run the survey again)");
         }
         RenderRequest req = new RenderRequest(geometry, data, q, new ColourLimits(min, max), v,
             flat ? Lighting.FLAT : Lighting.SHADED, ov, wh[0], wh[1]);

@@ -40,22 +40,82 @@ public final class SurveyData {
     private final String modelSha256;
     private final List<Zone> zones;
     private final List<Zone> sites;
+    private final List<String> parameterLines;
 
     /**
-     * A ranked landing zone: its rank (1 = best), the facets that belong to it, and the mean of their facet centroids
-     * (metres, model frame) from the {@code cx_m, cy_m, cz_m} columns.
+     * A ranked landing zone or site: its rank (1 = best), the facets that belong to it, the mean of their facet
+     * centroids (metres, model frame) from the {@code cx_m, cy_m, cz_m} columns, and its aim facet and aim point (the
+     * aim facet's centroid, on the surface; labels stand there, since the mean centroid of a curved footprint can lie
+     * inside the body). The aim facet is the one {@code summary.json} names ({@code sites[].aim_facet},
+     * {@code zones[].best_aim_facet}); without it, the member facet whose centroid is nearest the mean centroid.
      */
-    public record Zone(int rank, int[] facets, double[] centroid) {
+    public record Zone(int rank, int[] facets, double[] centroid, int aimFacet, double[] aim) {
     }
 
-    private SurveyData(Path dir, int facets, Map<String, double[]> columns, String modelSha256, List<Zone> zones) {
+    private SurveyData(Path dir, int facets, Map<String, double[]> columns, String modelSha256, List<Zone> zones,
+                       JsonNode summary) {
         this.dir = dir;
         this.facets = facets;
         this.columns = columns;
         this.modelSha256 = modelSha256;
-        this.zones = zones;
-        this.sites = columns.containsKey("site") && columns.containsKey("cx_m")
+        List<Zone> siteList = columns.containsKey("site") && columns.containsKey("cx_m")
             ? zonesOf(columns.get("site"), columns, facets) : List.of();
+        Path file = dir == null ? Path.of("summary.json") : dir.resolve("summary.json");
+        this.zones = withAims(zones, aimFacets(summary, "zones", "best_aim_facet", facets, file), columns);
+        this.sites = withAims(siteList, aimFacets(summary, "sites", "aim_facet", facets, file), columns);
+        this.parameterLines = SurveyInfo.lines(summary);
+    }
+
+    /** Aim facets by rank from an array of objects of summary.json ({@code rank} and {@code key}); checked. */
+    private static Map<Integer, Integer> aimFacets(JsonNode summary, String array, String key, int n, Path file) {
+        Map<Integer, Integer> out = new HashMap<>();
+        JsonNode a = summary == null ? null : summary.get(array);
+        if (a == null || !a.isArray()) {
+            return out;
+        }
+        for (JsonNode z : a) {
+            JsonNode r = z.get("rank");
+            JsonNode f = z.get(key);
+            if (r == null || f == null || f.isNull()) {
+                continue;
+            }
+            if (!r.canConvertToInt() || !r.isIntegralNumber() || !f.isIntegralNumber() || !f.canConvertToInt()
+                || f.asInt() < 0 || f.asInt() >= n) {
+                throw new InputException(file + ": " + array + "[]." + key + " " + f + " (rank " + r
+                    + ") is not a facet index from 0 to " + (n - 1));
+            }
+            out.put(r.asInt(), f.asInt());
+        }
+        return out;
+    }
+
+    /** The zones with their aim facets: from summary.json when named there, else the member nearest the centroid. */
+    private static List<Zone> withAims(List<Zone> list, Map<Integer, Integer> named, Map<String, double[]> cols) {
+        double[] cx = cols.get("cx_m");
+        double[] cy = cols.get("cy_m");
+        double[] cz = cols.get("cz_m");
+        if (cx == null || cy == null || cz == null) {
+            return list;
+        }
+        List<Zone> out = new ArrayList<>();
+        for (Zone z : list) {
+            int aim = named.getOrDefault(z.rank(), -1);
+            if (aim < 0) {
+                double best = Double.POSITIVE_INFINITY;
+                for (int f : z.facets()) {
+                    double dx = cx[f] - z.centroid()[0];
+                    double dy = cy[f] - z.centroid()[1];
+                    double dz = cz[f] - z.centroid()[2];
+                    double d = dx * dx + dy * dy + dz * dz;
+                    if (d < best) {
+                        best = d;
+                        aim = f;
+                    }
+                }
+            }
+            out.add(new Zone(z.rank(), z.facets(), z.centroid(), aim, new double[] {cx[aim], cy[aim], cz[aim]}));
+        }
+        return List.copyOf(out);
     }
 
     /**
@@ -94,7 +154,7 @@ public final class SurveyData {
         Path zonesCsv = dir.resolve("zones.csv");
         List<Zone> zones = Files.isRegularFile(zonesCsv) ? readZones(zonesCsv, cols, modelFacets)
             : zonesOf(cols.get("zone"), cols, modelFacets);
-        return new SurveyData(dir, modelFacets, cols, actual, zones);
+        return new SurveyData(dir, modelFacets, cols, actual, zones, summary);
     }
 
     /** Zone ranks are 0 (no zone) or whole numbers from 1 to the facet count: anything else is a damaged file. */
@@ -113,7 +173,7 @@ public final class SurveyData {
     static SurveyData ofColumns(Map<String, double[]> columns, int facets) {
         double[] zone = columns.getOrDefault("zone", new double[facets]);
         List<Zone> zones = columns.containsKey("cx_m") ? zonesOf(zone, columns, facets) : List.of();
-        return new SurveyData(null, facets, Map.copyOf(columns), "", zones);
+        return new SurveyData(null, facets, Map.copyOf(columns), "", zones, null);
     }
 
     private static String abbreviate(String sha) {
@@ -310,7 +370,7 @@ public final class SurveyData {
                     sz += cz[f];
                 }
             }
-            out.add(new Zone(r, members, new double[] {sx / k, sy / k, sz / k}));
+            out.add(new Zone(r, members, new double[] {sx / k, sy / k, sz / k}, -1, null));
         }
         return List.copyOf(out);
     }
@@ -371,7 +431,7 @@ public final class SurveyData {
                 sz += cz[q];
             }
             int k = members.length;
-            out.add(new Zone(e.getKey(), members, new double[] {sx / k, sy / k, sz / k}));
+            out.add(new Zone(e.getKey(), members, new double[] {sx / k, sy / k, sz / k}, -1, null));
         }
         return List.copyOf(out);
     }
@@ -399,6 +459,11 @@ public final class SurveyData {
         return c;
     }
 
+    /** Names of every column of the survey. */
+    public java.util.Set<String> columnNames() {
+        return columns.keySet();
+    }
+
     /** True when the survey has this column. */
     public boolean hasColumn(String name) {
         return columns.containsKey(name);
@@ -416,6 +481,19 @@ public final class SurveyData {
      */
     public List<Zone> zones() {
         return zones;
+    }
+
+    /**
+     * The survey's parameters in plain words, one item per line (spin, density and GM, field model and its accuracy,
+     * landing limits); "survey parameters not recorded" when summary.json lacks them.
+     */
+    public List<String> parameterLines() {
+        return parameterLines;
+    }
+
+    /** {@link #parameterLines()} joined on one line with " · ". */
+    public String parametersLine() {
+        return String.join("  ·  ", parameterLines);
     }
 
     /** Ranked landing sites from the {@code site} column (empty for surveys without it), by rank. */

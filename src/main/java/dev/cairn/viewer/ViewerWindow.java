@@ -261,7 +261,7 @@ public final class ViewerWindow {
     }
 
     private void recolour() {
-        Quantity q = quantity.getValue();
+        Quantity q = quantity.getValue() == null ? Quantity.NONE : quantity.getValue();
         if (q != Quantity.NONE && survey == null) {
             status.setText("No survey yet: showing the plain surface.");
             q = Quantity.NONE;
@@ -301,7 +301,17 @@ public final class ViewerWindow {
             survey = t.getValue();
             body.setSurvey(survey);
             status.setText("Survey: " + (dir != null ? dir : "computed") + ", " + survey.sites().size()
-                + " landing sites, " + survey.zones().size() + " landing zones.");
+                + " sites, " + survey.zones().size() + " zones  ·  " + survey.parametersLine());
+            status.setTooltip(new javafx.scene.control.Tooltip(String.join("\n", survey.parameterLines())));
+            Quantity keep = quantity.getValue();
+            java.util.List<Quantity> offered = new java.util.ArrayList<>();
+            for (Quantity q : Quantity.values()) {
+                if (q.availableIn(survey)) {
+                    offered.add(q); // only what this survey has (older surveys lack some columns)
+                }
+            }
+            quantity.getItems().setAll(offered);
+            quantity.setValue(offered.contains(keep) ? keep : Quantity.NONE);
             if (quantity.getValue() == Quantity.NONE) {
                 quantity.setValue(Quantity.SLOPE);
             }
@@ -370,42 +380,26 @@ public final class ViewerWindow {
     }
 
     private void showPick(int f) {
-        StringBuilder sb = new StringBuilder();
-        sb.append("facet ").append(f).append('\n');
         if (survey == null) {
             double[] c = body.geometry().facetCentroidScene(f);
             double[] com = body.geometry().centreOfMass();
-            sb.append(String.format(Locale.ROOT, "centroid (%.1f, %.1f, %.1f) m%n", c[0] + com[0], c[1] + com[1],
-                c[2] + com[2]));
-            sb.append("(no survey: no values)");
+            pickInfo.setText(String.format(Locale.ROOT, "facet %d%ncentroid (%.1f, %.1f, %.1f) m%n(no survey: no values)",
+                f, c[0] + com[0], c[1] + com[1], c[2] + com[2]));
         } else {
-            SurveyData s = survey;
-            sb.append(String.format(Locale.ROOT, "lat %.2f°  lon %.2f°%n", s.value("lat_deg", f),
-                s.value("lon_deg", f)));
-            sb.append(String.format(Locale.ROOT, "x %.1f  y %.1f  z %.1f m%n", s.value("cx_m", f), s.value("cy_m", f),
-                s.value("cz_m", f)));
-            sb.append(String.format(Locale.ROOT, "slope             %.2f°%n", s.value("slope_deg", f)));
-            sb.append(String.format(Locale.ROOT, "eff. gravity      %.4e m/s²%n", s.value("g_eff_m_s2", f)));
-            if (s.hasColumn("g_m_s2")) {
-                sb.append(String.format(Locale.ROOT, "gravity (no spin) %.4e m/s²%n", s.value("g_m_s2", f)));
-            }
-            sb.append(String.format(Locale.ROOT, "eff. potential    %.5e m²/s²%n", s.value("potential_eff_m2_s2", f)));
-            sb.append(String.format(Locale.ROOT, "dynamic height    %.2f m%n", s.value("dynamic_height_m", f)));
-            sb.append(String.format(Locale.ROOT, "escape speed      %.4f m/s%n", s.value("escape_speed_m_s", f)));
-            sb.append("lift-off          ").append(s.value("lift_off", f) > 0.5 ? "yes" : "no").append('\n');
-            int z = (int) Math.round(s.value("zone", f));
-            sb.append("landing zone      ").append(z > 0 ? "rank " + z : "none");
+            pickInfo.setText(PickReport.text(survey, f));
         }
-        pickInfo.setText(sb.toString());
     }
 
     private void about() {
         Alert a = new Alert(Alert.AlertType.INFORMATION);
         a.setTitle("About the Cairn viewer");
-        a.setHeaderText("Cairn viewer");
+        a.setHeaderText("Cairn viewer " + dev.cairn.cli.VersionProvider.version());
+        String params = survey == null ? "No survey loaded." : "Survey parameters:\n  "
+            + String.join("\n  ", survey.parameterLines());
         a.setContentText("Shape model coloured by surveyed surface quantities.\n"
             + "Units SI, model (body-fixed) frame; potential U > 0, acceleration = grad U.\n"
-            + "Effective values include the centrifugal term of the body's spin.\n\n" + Caution.TEXT);
+            + "Effective values include the centrifugal term of the body's spin.\n\n" + params + "\n\n"
+            + Caution.TEXT);
         a.showAndWait();
     }
 }

@@ -46,9 +46,9 @@ class CommandLineTest {
         String[] r = run("render", obj.toString(), "--size", "100x100", "--quantity", "none", "--out", png);
         assertEquals("2", r[0], r[1]);
         assertTrue(r[1].contains("--size"), r[1]);
-        r = run("render", obj.toString(), "--quantity", "roughness", "--out", png);
+        r = run("render", obj.toString(), "--quantity", "steepness", "--out", png);
         assertEquals("2", r[0]);
-        assertTrue(r[1].contains("unknown quantity 'roughness'"), r[1]);
+        assertTrue(r[1].contains("unknown quantity 'steepness'"), r[1]);
         r = run("render", obj.toString(), "--view", "up", "--quantity", "none", "--out", png);
         assertEquals("2", r[0]);
         assertTrue(r[1].contains("unknown view 'up'"), r[1]);

@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.sun.javafx.scene.SceneHelper;
 import dev.cairn.mesh.Shapes;
 import dev.cairn.mesh.TriangleMesh;
+import dev.cairn.util.ColourRamp;
 import java.util.EnumSet;
 import java.util.HashMap;
 import java.util.Map;

@@ -1,4 +1,4 @@
-package dev.cairn.viewer;
+package dev.cairn.util;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -95,35 +95,19 @@ class ColourRampTest {
     }
 
     @Test
-    void facetColouringMapsLimitsWarningAndMissingValues() {
-        double[] slope = {0, 15, 30, 45, Double.NaN};
-        java.util.Map<String, double[]> cols = java.util.Map.of("slope_deg", slope);
-        SurveyData s = SurveyData.ofColumns(cols, slope.length);
-        FacetColouring.Result r = FacetColouring.colour(s, 5, Quantity.SLOPE, new ColourLimits(0.0, 30.0));
-        assertEquals(ColourRamp.SEQUENTIAL.argb(0), r.argb()[0]);
-        assertEquals(ColourRamp.SEQUENTIAL.argb(0.5), r.argb()[1]);
-        assertEquals(ColourRamp.SEQUENTIAL.argb(1), r.argb()[2]);
-        assertEquals(ColourRamp.WARNING, r.argb()[3], "steeper than the limit");
-        assertEquals(ColourRamp.NO_DATA, r.argb()[4]);
-        assertTrue(r.legend().warnAbove());
-        FacetColouring.Result auto = FacetColouring.colour(s, 5, Quantity.SLOPE, ColourLimits.AUTO);
-        assertEquals(45, auto.legend().max());
-        assertEquals(ColourRamp.SEQUENTIAL.argb(1), auto.argb()[3], "automatic range: no warning colour");
+    void liftOffColourStandsApartFromBothRampsAndTheWarning() {
+        // CIE 1976 colour difference (Euclidean in L*a*b*); 20 units is a plainly visible difference (common
+        // practice, no source)
+        double[] lift = lab(ColourRamp.LIFT_OFF);
+        for (int i = 0; i < N; i++) {
+            for (ColourRamp r : new ColourRamp[] {ColourRamp.SEQUENTIAL, ColourRamp.DIVERGING}) {
+                assertTrue(deltaE(lift, lab(r.argb(i / (N - 1.0)))) > 20, "lift-off against ramp at " + i);
+            }
+        }
+        assertTrue(deltaE(lift, lab(ColourRamp.WARNING)) > 20, "lift-off against warning");
     }
 
-    @Test
-    void divergingQuantityIsCentredOnZero() {
-        double[] h = {-5, 0, 20};
-        SurveyData s = SurveyData.ofColumns(java.util.Map.of("dynamic_height_m", h), 3);
-        FacetColouring.Result r = FacetColouring.colour(s, 3, Quantity.DYNAMIC_HEIGHT, ColourLimits.AUTO);
-        assertEquals(-20, r.legend().min());
-        assertEquals(20, r.legend().max());
-        assertEquals(ColourRamp.DIVERGING.argb(0.5), r.argb()[1]);
-        assertEquals(ColourRamp.DIVERGING.argb(1), r.argb()[2]);
-        // one-signed data (e.g. heights above the lowest point) use the sequential ramp
-        SurveyData p = SurveyData.ofColumns(java.util.Map.of("dynamic_height_m", new double[] {0, 5, 10}), 3);
-        FacetColouring.Result q = FacetColouring.colour(p, 3, Quantity.DYNAMIC_HEIGHT, ColourLimits.AUTO);
-        assertEquals(Quantity.Kind.SEQUENTIAL, q.legend().kind());
-        assertEquals(ColourRamp.SEQUENTIAL.argb(0.5), q.argb()[1]);
+    static double deltaE(double[] a, double[] b) {
+        return Math.sqrt((a[0] - b[0]) * (a[0] - b[0]) + (a[1] - b[1]) * (a[1] - b[1]) + (a[2] - b[2]) * (a[2] - b[2]));
     }
 }

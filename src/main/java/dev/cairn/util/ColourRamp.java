@@ -1,4 +1,4 @@
-package dev.cairn.viewer;
+package dev.cairn.util;
 
 /**
  * Cairn's colour ramps, designed for this project, as tables of packed sRGB colours ({@code 0xAARRGGBB}).
@@ -14,6 +14,13 @@ package dev.cairn.viewer;
  * <p><b>Diverging ramp</b> ({@link #DIVERGING}) for signed quantities: blue for negative, a near-white neutral at
  * zero (t = 0.5), brown-orange for positive; lightness falls symmetrically and linearly with |2t − 1|, so in
  * greyscale it reads as magnitude, and the sign is carried by the blue–orange hue pair.
+ *
+ * <p>This is the one colour definition of the project: the PNG maps of the survey and the 3D views of the viewer and
+ * renderer both take their colours from here, through {@code dev.cairn.surface.ColourScale}, so the same value has the
+ * same colour in both.
+ *
+ * <p>{@link #LIFT_OFF} marks facets where loose material lifts off (effective gravity pointing away from the surface,
+ * slope above 90°): a saturated magenta, a hue no ramp uses.
  *
  * <p>{@link #WARNING} marks values beyond a user-set upper limit (e.g. slopes steeper than the landing threshold): a
  * dark red darker than every ramp colour, so it stands apart even in greyscale.
@@ -37,6 +44,8 @@ public final class ColourRamp {
 
     /** Values above a user-set upper limit: dark red (OKLab L 0.30). */
     public static final int WARNING = oklch(0.30, 0.11, 25);
+    /** Lift-off (slope above 90°): saturated magenta (OKLCh 0.60, 0.25, 340°), a hue outside both ramps. */
+    public static final int LIFT_OFF = oklch(0.60, 0.25, 340);
     /** Facets without a value (NaN): neutral mid grey. */
     public static final int NO_DATA = oklch(0.62, 0.0, 0);
     /** Facets outside every category (not in a zone, no lift-off): light neutral grey. */
@@ -82,7 +91,7 @@ public final class ColourRamp {
      * An sRGB colour from OKLCh (lightness 0..1, chroma, hue in degrees), brought into gamut by lowering chroma at
      * constant lightness and hue (bisection).
      */
-    static int oklch(double lightness, double chroma, double hueDeg) {
+    public static int oklch(double lightness, double chroma, double hueDeg) {
         double h = Math.toRadians(hueDeg);
         double ca = Math.cos(h);
         double sa = Math.sin(h);
