@@ -59,6 +59,7 @@ import org.apache.commons.math3.ode.sampling.StepInterpolator;
  */
 public final class Propagator {
     private static final int MAX_CHORDS = 4096;
+    private static final boolean DEBUG = Boolean.getBoolean("cairn.dbg");
     private final FieldModel field;
     private final TriangleMesh mesh;
     private final RotatingFrame frame;
@@ -355,6 +356,10 @@ public final class Propagator {
             } catch (MaxCountExceededException e) {
                 outcome = Trajectory.Outcome.STEP_LIMIT;
                 endTime = rowCount > 0 ? rows[(rowCount - 1) * Trajectory.COLUMNS] : 0;
+            }
+            if (DEBUG) {
+                System.err.println("DBG steps " + steps + " evals " + evaluations + " continued " + continued
+                    + " outcome " + outcome + " end " + endTime + " first " + firstStep);
             }
             return new Trajectory(outcome, java.util.Arrays.copyOf(rows, rowCount * Trajectory.COLUMNS),
                 List.copyOf(events), endTime, jacobi0, maxDrift, steps, evaluations);
