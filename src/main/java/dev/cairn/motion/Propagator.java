@@ -59,7 +59,6 @@ import org.apache.commons.math3.ode.sampling.StepInterpolator;
  */
 public final class Propagator {
     private static final int MAX_CHORDS = 4096;
-    private static final boolean DEBUG = Boolean.getBoolean("cairn.dbg");
     private final FieldModel field;
     private final TriangleMesh mesh;
     private final RotatingFrame frame;
@@ -286,7 +285,6 @@ public final class Propagator {
         /** Model-frame position at the start of the current step (outside), for the continuation across facets. */
         private final double[] stepStart = new double[3];
         private final int[] contFacet = new int[1];
-        private long continued;
         private final double[] sample = new double[FieldSample.SIZE];
         private final double[] tmp = new double[6];
         private final double[] tmp2 = new double[6];
@@ -356,10 +354,6 @@ public final class Propagator {
             } catch (MaxCountExceededException e) {
                 outcome = Trajectory.Outcome.STEP_LIMIT;
                 endTime = rowCount > 0 ? rows[(rowCount - 1) * Trajectory.COLUMNS] : 0;
-            }
-            if (DEBUG) {
-                System.err.println("DBG steps " + steps + " evals " + evaluations + " continued " + continued
-                    + " outcome " + outcome + " end " + endTime + " first " + firstStep);
             }
             return new Trajectory(outcome, java.util.Arrays.copyOf(rows, rowCount * Trajectory.COLUMNS),
                 List.copyOf(events), endTime, jacobi0, maxDrift, steps, evaluations);
@@ -528,8 +522,8 @@ public final class Propagator {
             }
             if (trial && sample[FieldSample.LOCATION] == 1.0) {
                 double s = index.firstHit(stepStart[0], stepStart[1], stepStart[2], x, y, z, contFacet);
-                if (!Double.isNaN(s) && continueAcross(x, y, z, contFacet[0], sample, 0)) {
-                    continued++;
+                if (!Double.isNaN(s)) {
+                    continueAcross(x, y, z, contFacet[0], sample, 0);
                 }
             }
             int k = memoNext;
