@@ -86,6 +86,14 @@ public final class BenchCommand implements Callable<Integer> {
         + "lumpy icosphere of 20·4^L facets (6: 81 920; 0: skip; default ${DEFAULT-VALUE}).")
     int lumpyLevel = 0;
 
+    @Option(names = "--motion", description = "Only benchmark motion: trajectory steps/s and field evaluations "
+        + "(exact, hierarchical, table) and the deployment Monte Carlo beside its baseline (MotionBench).")
+    boolean motion;
+
+    @Option(names = "--motion-samples", paramLabel = "N", description = "With --motion: deployment samples "
+        + "(default ${DEFAULT-VALUE}).")
+    int motionSamples = 1000;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -107,6 +115,14 @@ public final class BenchCommand implements Callable<Integer> {
         if (!body.hasDensity()) {
             body = dev.cairn.body.ModelLoader.load(model.modelPath(),
                 new dev.cairn.body.ModelRequest(model.units, 2000.0, null, null, null, null));
+        }
+        if (motion) {
+            if (motionSamples < 2 || motionSamples > 100_000) {
+                throw new InputException("--motion-samples: 2 to 100000, got " + motionSamples);
+            }
+            MotionBench.run(spec.commandLine().getOut(), body, motionSamples, ParallelChunks.defaultThreads());
+            spec.commandLine().getOut().flush();
+            return 0;
         }
         PolyhedronField field = body.polyhedronField();
         PrintWriter out = spec.commandLine().getOut();

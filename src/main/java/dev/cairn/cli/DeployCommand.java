@@ -54,6 +54,13 @@ import picocli.CommandLine.Spec;
 public final class DeployCommand implements Callable<Integer> {
     /** Most samples per run. */
     static final int MAX_COUNT = 1_000_000;
+    /**
+     * Field tolerance of deploy when neither --tolerance nor --exact nor --table is given (the hierarchical field;
+     * other commands default to 1e-10). Measured on the demo deployment: see docs/trajectories.md, "Speed".
+     */
+    static final double DEFAULT_FIELD_TOLERANCE = 1e-6;
+    /** Integrator tolerance of deploy (other commands default to 1e-12); measured as above. */
+    static final double DEFAULT_INTEGRATOR_TOLERANCE = 1e-8;
 
     @Mixin
     ModelOptions model = new ModelOptions();
@@ -61,13 +68,15 @@ public final class DeployCommand implements Callable<Integer> {
     @Mixin
     SpinOptions spinOptions = new SpinOptions();
 
-    @Option(names = "--release", required = true, paramLabel = "X,Y,Z", split = ",",
+    @Option(names = "--release", required = true, paramLabel = "X,Y,Z",
+        converter = NumberList.Converter.class,
         description = "Nominal release position, m, body frame.")
-    double[] release;
+    NumberList release;
 
-    @Option(names = "--velocity", required = true, paramLabel = "VX,VY,VZ", split = ",",
+    @Option(names = "--velocity", required = true, paramLabel = "VX,VY,VZ",
+        converter = NumberList.Converter.class,
         description = "Nominal release velocity relative to the body, m/s, body frame.")
-    double[] velocity;
+    NumberList velocity;
 
     @Option(names = "--count", paramLabel = "N", description = "Number of samples (default ${DEFAULT-VALUE}).")
     int count = 100;
@@ -80,9 +89,10 @@ public final class DeployCommand implements Callable<Integer> {
         + "velocity component, m/s (default ${DEFAULT-VALUE}).")
     double velocitySigma = 0;
 
-    @Option(names = "--restitution", paramLabel = "EN,ET", split = ",", description = "Normal and tangential "
+    @Option(names = "--restitution", paramLabel = "EN,ET",
+        converter = NumberList.Converter.class, description = "Normal and tangential "
         + "coefficients of restitution, each in [0, 1] (default 0.5,0.8; chosen, no source).")
-    double[] restitution = {0.5, 0.8};
+    NumberList restitution = new NumberList(new double[] {0.5, 0.8});
 
     @Option(names = "--seed", paramLabel = "S", description = "Seed of the dispersion (default ${DEFAULT-VALUE}).")
     long seed = 1;
@@ -104,8 +114,9 @@ public final class DeployCommand implements Callable<Integer> {
     int maxBounces = 1000;
 
     @Option(names = "--integrator-tolerance", paramLabel = "REL", description = "Relative (and scaled absolute) local "
-        + "error per step of the Dormand-Prince 8(5,3) integrator, 1e-15 to 1e-3 (default ${DEFAULT-VALUE}).")
-    double integratorTolerance = MotionSettings.DEFAULT_RELATIVE_TOLERANCE;
+        + "error per step of the Dormand-Prince 8(5,3) integrator, 1e-15 to 1e-3 (default ${DEFAULT-VALUE}; "
+        + "with the default field tolerance 1e-6, see docs/trajectories.md for the measured accuracy).")
+    double integratorTolerance = DEFAULT_INTEGRATOR_TOLERANCE;
 
     @Option(names = "--table", paramLabel = "FILE", description = "Use an acceleration table of this body (from "
         + "'cairn table'; tricubic interpolation, the body's field outside the table) instead of the body's field.")
@@ -123,8 +134,8 @@ public final class DeployCommand implements Callable<Integer> {
 
     /** Checks the options and builds the settings; one-line InputException on bad values. */
     DeploymentSettings settings() {
-        double[] r = TrajectoryCommand.vector(release, 3, "--release");
-        double[] v = TrajectoryCommand.vector(velocity, 3, "--velocity");
+        double[] r = TrajectoryCommand.vector(release.values(), 3, "--release");
+        double[] v = TrajectoryCommand.vector(velocity.values(), 3, "--velocity");
         if (count < 1 || count > MAX_COUNT) {
             throw new InputException("--count: must be between 1 and " + MAX_COUNT + ", got " + count);
         }
@@ -134,7 +145,7 @@ public final class DeployCommand implements Callable<Integer> {
         if (!(velocitySigma >= 0 && Double.isFinite(velocitySigma))) {
             throw new InputException("--velocity-sigma: must be a finite number >= 0 m/s, got " + velocitySigma);
         }
-        double[] e = TrajectoryCommand.vector(restitution, 2, "--restitution");
+        double[] e = TrajectoryCommand.vector(restitution.values(), 2, "--restitution");
         if (!(e[0] >= 0 && e[0] <= 1 && e[1] >= 0 && e[1] <= 1)) {
             throw new InputException("--restitution: coefficients must be in [0, 1], got " + e[0] + "," + e[1]);
         }
@@ -162,6 +173,9 @@ public final class DeployCommand implements Callable<Integer> {
         DeploymentSettings ds = settings();
         spinOptions.periodSeconds();
         spinOptions.axis();
+        if (model.tolerance == null && !model.exact && table == null) {
+            model.tolerance = DEFAULT_FIELD_TOLERANCE;
+        }
         BodyModel body = model.load(spinOptions);
         PrintWriter err = spec.commandLine().getErr();
         for (String w : body.warnings()) {
@@ -421,6 +435,10 @@ public final class DeployCommand implements Callable<Integer> {
         o.printf(Locale.ROOT, "Body         %s (%s), %d facets%n", body.name(), body.source(), body.mesh().facetCount());
         o.printf(Locale.ROOT, "Field        %s, tolerance %s%n", field.describe(),
             Double.isNaN(field.tolerance()) ? "exact" : String.format(Locale.ROOT, "%.1e", field.tolerance()));
+        o.printf(Locale.ROOT, "Integrator   Dormand-Prince 8(5,3), relative tolerance %.1e (absolute: the same times "
+            + "the body radius and sqrt(GM/radius))%s%n", integratorTolerance,
+            integratorTolerance == DEFAULT_INTEGRATOR_TOLERANCE && Double.valueOf(DEFAULT_FIELD_TOLERANCE)
+                .equals(model.tolerance) ? "; deploy defaults, accuracy measured in docs/trajectories.md" : "");
         if (check.samples() > 0) {
             o.println("Field check  " + check.line());
         }

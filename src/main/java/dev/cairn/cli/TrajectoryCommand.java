@@ -437,6 +437,8 @@ public final class TrajectoryCommand implements Callable<Integer> {
         ThirdBody tb = s.thirdBody();
         m.put("third_body", tb == null ? null : Map.of("gm_m3_s2", tb.gm(), "distance_m", tb.distance()));
         m.put("altitude_thresholds_m", s.altitudes());
+        m.put("inside_trial_points", p.isStrict() ? "strict: the body's own field at every trial point"
+            : "the exterior field continued across the facet entered since the step start (impact found exactly)");
         return m;
     }
 

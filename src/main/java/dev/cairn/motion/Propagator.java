@@ -45,8 +45,17 @@ import org.apache.commons.math3.ode.sampling.StepInterpolator;
  * <b>Altitude</b>: the signed distance to the surface ({@link SurfaceQuery#signedDistance}) crosses a threshold between
  * step ends (refined by bisection on the dense output).
  *
- * <p>Immutable and thread-safe: each {@link #propagate} call makes its own field evaluator and integrator, so runs on
- * different threads give the same results as runs on one.
+ * <p><b>Trial points inside the body.</b> A trial step of the integrator that ends inside the body would see the
+ * interior field, whose second derivatives jump at the surface: the step-size controller then rejects and shrinks
+ * steps until one ends just short of the surface. Instead, a trial point that the field calls inside gets the
+ * exterior field analytically continued across the facet that the segment from the step's start to the point
+ * enters ({@link #continuedField}); the controller sees a smooth field and the impact is still found exactly by the
+ * segment–mesh test on the accepted step and refined on its dense output. The last few evaluations are remembered,
+ * so the Jacobi integral at a step end reuses the integrator's evaluation there. {@link #withStrict} gives the path
+ * without these (reference and benchmark baseline).
+ *
+ * <p>Immutable and thread-safe: each {@link #propagate} call makes its own integrator (and, unless one is passed in,
+ * its own field evaluator), so runs on different threads give the same results as runs on one.
  */
 public final class Propagator {
     private static final int MAX_CHORDS = 4096;
@@ -64,6 +73,7 @@ public final class Propagator {
     private final double speedScale;
     private final double escapeRadius;
     private final double[] srp0;
+    private final boolean strict;
 
     /**
      * @param field    gravity field of the body (model frame)
@@ -72,11 +82,12 @@ public final class Propagator {
      * @param settings frame, tolerances, extra accelerations, event thresholds
      */
     public Propagator(FieldModel field, TriangleMesh mesh, RotatingFrame frame, MotionSettings settings) {
-        this(field, mesh, frame, settings, new SegmentIndex(mesh), new SurfaceQuery(mesh));
+        this(field, mesh, frame, settings, new SegmentIndex(mesh), new SurfaceQuery(mesh), false);
     }
 
     private Propagator(FieldModel field, TriangleMesh mesh, RotatingFrame frame, MotionSettings settings,
-                       SegmentIndex index, SurfaceQuery surface) {
+                       SegmentIndex index, SurfaceQuery surface, boolean strict) {
+        this.strict = strict;
         this.field = field;
         this.mesh = mesh;
         this.frame = frame;
@@ -104,7 +115,69 @@ public final class Propagator {
 
     /** The same body with other settings (shares the spatial indexes). */
     public Propagator with(MotionSettings other) {
-        return new Propagator(field, mesh, frame, other, index, surface);
+        return new Propagator(field, mesh, frame, other, index, surface, strict);
+    }
+
+    /**
+     * The same body and settings on the strict path ({@code true}): the field is always the body's own field at
+     * every trial point (inside points included, no continuation), no evaluation is reused, and the integrator picks
+     * its own first step. It is the code path before the continuation was added, kept as the reference and the
+     * benchmark baseline; results agree with the default path within the integrator tolerance (tested).
+     */
+    public Propagator withStrict(boolean strictPath) {
+        return new Propagator(field, mesh, frame, settings, index, surface, strictPath);
+    }
+
+    /** Whether this propagator runs the strict path (see {@link #withStrict}). */
+    public boolean isStrict() {
+        return strict;
+    }
+
+    /** A new evaluator of the field, for one thread; pass it to {@link #propagate(double[], double, double,
+     * FieldEvaluator, double)} to reuse it over many propagations. */
+    public FieldEvaluator newEvaluator() {
+        return field.newEvaluator();
+    }
+
+    /**
+     * The body's exterior field analytically continued across facet f to the point (x, y, z), model frame: the
+     * field is evaluated at the point and, when the model reports the point inside with a Laplacian λ = −4πGρ
+     * (constant density near the facet), corrected by the part that jumps across f. In the Werner–Scheeres sums only
+     * the solid angle ω_f of the crossed facet jumps (by 4π) when a point passes through the facet's interior, and it
+     * enters U with the weight −(Gρ/2)(n_f·r_f)² (Werner, R.A. &amp; Scheeres, D.J. (1997) Celest. Mech. Dyn. Astron.
+     * 65:313–344, eq. for U); with d = n_f·(x − v_f) the signed distance from the facet's plane (negative inside):
+     * <pre>
+     *   U_cont = U_in − (λ/2) d²,   g_cont = g_in − λ d n_f
+     * </pre>
+     * which is harmonic (∇²U_cont = λ − λ = 0) and joins the exterior field with its value and gradient on the
+     * facet (the correction is O(d²)). Outside points, points the model does not call inside, and models with no
+     * Laplacian are returned unchanged.
+     *
+     * @param out receives a {@link FieldSample} (modified); its LOCATION slot keeps the model's classification
+     * @return whether the continuation was applied
+     */
+    public boolean continuedField(FieldEvaluator eval, double x, double y, double z, int f, double[] out, int o) {
+        eval.evaluate(x, y, z, false, out, o);
+        return continueAcross(x, y, z, f, out, o);
+    }
+
+    /** Applies the continuation of {@link #continuedField} to a sample already evaluated at (x, y, z). */
+    private boolean continueAcross(double x, double y, double z, int f, double[] out, int o) {
+        double lap = out[o + FieldSample.LAPLACIAN];
+        if (f < 0 || out[o + FieldSample.LOCATION] != 1.0 || !(lap < 0) || !Double.isFinite(lap)) {
+            return false;
+        }
+        double[] xyz = mesh.xyz();
+        int v = 3 * mesh.tri()[3 * f];
+        double nx = fn[3 * f];
+        double ny = fn[3 * f + 1];
+        double nz = fn[3 * f + 2];
+        double d = (x - xyz[v]) * nx + (y - xyz[v + 1]) * ny + (z - xyz[v + 2]) * nz;
+        out[o + FieldSample.U] -= 0.5 * lap * d * d;
+        out[o + FieldSample.AX] -= lap * d * nx;
+        out[o + FieldSample.AY] -= lap * d * ny;
+        out[o + FieldSample.AZ] -= lap * d * nz;
+        return true;
     }
 
     public MotionSettings settings() {
@@ -155,7 +228,23 @@ public final class Propagator {
         if (!(duration > 0) || !Double.isFinite(duration) || !(outputStep > 0) || !Double.isFinite(outputStep)) {
             throw new IllegalArgumentException("duration and output step must be positive and finite");
         }
-        return new Run(duration, outputStep).run(state0);
+        return new Run(duration, outputStep, field.newEvaluator(), Double.NaN).run(state0);
+    }
+
+    /**
+     * Propagates one initial state with a caller's evaluator (reused across propagations of one thread: no
+     * allocation per step or per run in the evaluator) and a first step.
+     *
+     * @param eval      an evaluator of {@link #field()} owned by the calling thread
+     * @param firstStep size of the integrator's first step, s (NaN or ≤ 0: the integrator's own estimate, which
+     *                  costs an extra field evaluation); ignored on the strict path
+     */
+    public Trajectory propagate(double[] state0, double duration, double outputStep, FieldEvaluator eval,
+                                double firstStep) {
+        if (!(duration > 0) || !Double.isFinite(duration) || !(outputStep > 0) || !Double.isFinite(outputStep)) {
+            throw new IllegalArgumentException("duration and output step must be positive and finite");
+        }
+        return new Run(duration, outputStep, eval, strict ? Double.NaN : firstStep).run(state0);
     }
 
     /** Rotation of v by angle θ about the spin pole (Rodrigues' formula), into out[o..o+2]. */
@@ -185,7 +274,17 @@ public final class Propagator {
     private final class Run implements FirstOrderDifferentialEquations, StepHandler {
         private final double duration;
         private final double outputStep;
-        private final FieldEvaluator eval = field.newEvaluator();
+        private final FieldEvaluator eval;
+        private final double firstStep;
+        /** Last evaluated points (model frame) and their samples, a ring (reuse of the step-end evaluation). */
+        private static final int MEMO = 8;
+        private final double[] memoXyz = new double[3 * MEMO];
+        private final double[] memoSample = new double[FieldSample.SIZE * MEMO];
+        private int memoCount;
+        private int memoNext;
+        /** Model-frame position at the start of the current step (outside), for the continuation across facets. */
+        private final double[] stepStart = new double[3];
+        private final int[] contFacet = new int[1];
         private final double[] sample = new double[FieldSample.SIZE];
         private final double[] tmp = new double[6];
         private final double[] tmp2 = new double[6];
@@ -208,7 +307,9 @@ public final class Propagator {
         private Trajectory.Outcome outcome = Trajectory.Outcome.DURATION;
         private StepInterpolator interp;
 
-        Run(double duration, double outputStep) {
+        Run(double duration, double outputStep, FieldEvaluator eval, double firstStep) {
+            this.eval = eval;
+            this.firstStep = firstStep;
             this.duration = duration;
             this.outputStep = outputStep;
             this.alts = settings.altitudes();
@@ -220,6 +321,9 @@ public final class Propagator {
         Trajectory run(double[] state0) {
             double[] y = state0.clone();
             toBody(0, y, body);
+            stepStart[0] = body[0];
+            stepStart[1] = body[1];
+            stepStart[2] = body[2];
             jacobi0 = jacobi(body);
             addRow(0, y);
             if (alts.length > 0) {
@@ -235,6 +339,9 @@ public final class Propagator {
             long maxEvals = Math.max(1, settings.maxEvaluations() - evaluations);
             dp.setMaxEvaluations((int) Math.min(Integer.MAX_VALUE, maxEvals));
             dp.addStepHandler(this);
+            if (firstStep > 0 && firstStep < duration) {
+                dp.setInitialStepSize(firstStep);
+            }
             double[] yEnd = y.clone();
             endTime = duration;
             try {
@@ -268,8 +375,7 @@ public final class Propagator {
             double[] srp = srp0;
             ThirdBody tb = settings.thirdBody();
             if (settings.frame() == Frame.BODY) {
-                evaluations++;
-                eval.evaluate(y[0], y[1], y[2], false, sample, 0);
+                fieldAt(y[0], y[1], y[2], true);
                 double px = y[0] - centre[0];
                 double py = y[1] - centre[1];
                 double pz = y[2] - centre[2];
@@ -293,8 +399,7 @@ public final class Propagator {
                 tmp2[1] = y[1] - centre[1];
                 tmp2[2] = y[2] - centre[2];
                 rotate(tmp2, 0, -omega * t, tmp, 0);
-                evaluations++;
-                eval.evaluate(centre[0] + tmp[0], centre[1] + tmp[1], centre[2] + tmp[2], false, sample, 0);
+                fieldAt(centre[0] + tmp[0], centre[1] + tmp[1], centre[2] + tmp[2], true);
                 rotate(sample, FieldSample.AX, omega * t, tmp, 3);
                 if (srp != null || tb != null) {
                     externalInertial(t, tmp2[0], tmp2[1], tmp2[2], false, tmp);
@@ -396,10 +501,43 @@ public final class Propagator {
             out[o + 5] = vi[2] + omega * (axis[0] * pi[1] - axis[1] * pi[0]);
         }
 
-        /** Jacobi integral of a body-frame state (one field evaluation). */
-        private double jacobi(double[] b) {
+        /**
+         * The field at a model-frame point into {@link #sample}: the memo of the last evaluations first (not on the
+         * strict path); then one evaluation, continued across the facet entered since the step start when the point
+         * is inside and {@code trial} (a trial point of the integrator).
+         */
+        private void fieldAt(double x, double y, double z, boolean trial) {
+            if (!strict) {
+                for (int k = 0; k < memoCount; k++) {
+                    if (memoXyz[3 * k] == x && memoXyz[3 * k + 1] == y && memoXyz[3 * k + 2] == z) {
+                        System.arraycopy(memoSample, FieldSample.SIZE * k, sample, 0, FieldSample.SIZE);
+                        return;
+                    }
+                }
+            }
             evaluations++;
-            eval.evaluate(b[0], b[1], b[2], false, sample, 0);
+            eval.evaluate(x, y, z, false, sample, 0);
+            if (strict) {
+                return;
+            }
+            if (trial && sample[FieldSample.LOCATION] == 1.0) {
+                double s = index.firstHit(stepStart[0], stepStart[1], stepStart[2], x, y, z, contFacet);
+                if (!Double.isNaN(s)) {
+                    continueAcross(x, y, z, contFacet[0], sample, 0);
+                }
+            }
+            int k = memoNext;
+            memoXyz[3 * k] = x;
+            memoXyz[3 * k + 1] = y;
+            memoXyz[3 * k + 2] = z;
+            System.arraycopy(sample, 0, memoSample, FieldSample.SIZE * k, FieldSample.SIZE);
+            memoNext = (k + 1) % MEMO;
+            memoCount = Math.min(MEMO, memoCount + 1);
+        }
+
+        /** Jacobi integral of a body-frame state (at most one field evaluation; the step end's is reused). */
+        private double jacobi(double[] b) {
+            fieldAt(b[0], b[1], b[2], false);
             double v2 = b[3] * b[3] + b[4] * b[4] + b[5] * b[5];
             return 0.5 * v2 - sample[FieldSample.U] - frame.centrifugalPotential(b[0], b[1], b[2]);
         }
@@ -534,6 +672,9 @@ public final class Propagator {
             // Jacobi at the step end (drift tracking).
             bodyStateAt(t1);
             maxDrift = Math.max(maxDrift, Math.abs(jacobi(body) - jacobi0));
+            stepStart[0] = body[0];
+            stepStart[1] = body[1];
+            stepStart[2] = body[2];
         }
 
         private void bodyStateAt(double t) {

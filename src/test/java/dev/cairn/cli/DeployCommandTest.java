@@ -101,7 +101,7 @@ class DeployCommandTest {
         bad("--position-sigma: must be a finite number >= 0", ok[0], ok[1], ok[2], ok[3], "--position-sigma", "-1");
         bad("--time-limit: must be positive", ok[0], ok[1], ok[2], ok[3], "--time-limit", "-2h");
         // refused by the strict number parser of the command line (issue 12) before the range check
-        bad("'--velocity' (VX,VY,VZ): 'NaN' is not a decimal number", "--release", "0,0,140", "--velocity", "0,NaN,0");
+        bad("'--velocity': 'NaN' is not a decimal number", "--release", "0,0,140", "--velocity", "0,NaN,0");
         bad("--release: expected 3", "--release", "0,140", "--velocity", "0,0,0");
     }
 }
