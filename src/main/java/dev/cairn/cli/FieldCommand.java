@@ -7,7 +7,7 @@ import dev.cairn.gravity.FieldSample;
 import dev.cairn.gravity.Location;
 import dev.cairn.io.AtomicFiles;
 import dev.cairn.body.BodyModel;
-import dev.cairn.io.OutputMetadata;
+import dev.cairn.body.OutputMetadata;
 import dev.cairn.io.PointsCsv;
 import dev.cairn.util.ParallelChunks;
 import java.io.IOException;

@@ -3,7 +3,7 @@ package dev.cairn.surface;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import dev.cairn.io.AtomicFiles;
-import dev.cairn.io.OutputMetadata;
+import dev.cairn.body.OutputMetadata;
 import dev.cairn.mesh.TriangleMesh;
 import java.io.DataOutputStream;
 import java.io.IOException;

@@ -1,5 +1,7 @@
-package dev.cairn.io;
+package dev.cairn.body;
 
+import dev.cairn.io.AtomicFiles;
+import dev.cairn.io.Messages;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
