@@ -291,14 +291,39 @@ public final class SlurmArray {
                 throw new InputException(at + "expected one sbatch option such as --partition=NAME, got "
                     + Messages.quote(l));
             }
-            String name = l.split("[= ]", 2)[0];
-            if (RESERVED.contains(name)) {
+            String name = l.split("[= \t]", 2)[0];
+            if (!name.startsWith("--")) {
+                name = name.substring(0, 2); // a short option with its value attached: -a0-9
+            }
+            if (!name.matches("--[A-Za-z][A-Za-z0-9-]*|-[A-Za-z]")) {
+                throw new InputException(at + "expected one sbatch option such as --partition=NAME, got "
+                    + Messages.quote(l));
+            }
+            if (isReserved(name)) {
                 throw new InputException(at + name + " is set by the generated scripts (use --slurm N, --slurm-cpus C "
                     + "or --out instead)");
             }
             opts.add(l);
         }
         return opts;
+    }
+
+    /**
+     * Whether {@code name} sets one of the {@link #RESERVED} options, directly or (sbatch reads long options with
+     * getopt_long, which accepts any unambiguous prefix; from memory) as an abbreviation such as {@code --arr}.
+     */
+    static boolean isReserved(String name) {
+        if (RESERVED.contains(name)) {
+            return true;
+        }
+        if (name.startsWith("--") && name.length() > 2) {
+            for (String r : RESERVED) {
+                if (r.startsWith("--") && r.startsWith(name)) {
+                    return true;
+                }
+            }
+        }
+        return false;
     }
 
     /** Job ids of a submission. */

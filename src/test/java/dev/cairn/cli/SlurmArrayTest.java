@@ -220,6 +220,18 @@ class SlurmArrayTest {
         Files.writeString(opts, "# extra\n--partition=short\n#SBATCH --array=0-9\n");
         assertBad("line 3: --array is set by the generated scripts", grid("--out", out, "--slurm", "4",
             "--slurm-sbatch", opts.toString()));
+        Files.writeString(opts, "--arr=0-9\n");
+        assertBad("line 1: --arr is set by the generated scripts", grid("--out", out, "--slurm", "4",
+            "--slurm-sbatch", opts.toString()));
+        Files.writeString(opts, "--partition=a\n-d afterany:1\n");
+        assertBad("line 2: -d is set by the generated scripts", grid("--out", out, "--slurm", "4",
+            "--slurm-sbatch", opts.toString()));
+        Files.writeString(opts, "--\n--array=1\n");
+        assertBad("line 1: expected one sbatch option", grid("--out", out, "--slurm", "4", "--slurm-sbatch",
+            opts.toString()));
+        Files.writeString(opts, "-a0-9\n");
+        assertBad("line 1: -a is set by the generated scripts", grid("--out", out, "--slurm", "4",
+            "--slurm-sbatch", opts.toString()));
         Files.writeString(opts, "--mem=4G\nrm -rf /\n");
         assertBad("line 2: expected one sbatch option", grid("--out", out, "--slurm", "4", "--slurm-sbatch",
             opts.toString()));

@@ -144,6 +144,17 @@ class TableCommandTest {
         Object singleAcc = TableFiles.readJson(TableFiles.sidecarPath(single)).get("accuracy");
         assertTrue(singleAcc instanceof Map<?, ?>, "single run has an accuracy report");
         assertEquals(singleAcc, TableFiles.readJson(TableFiles.sidecarPath(merged)).get("accuracy"));
+        // table-merge --check-cell-points N reproduces a single run made with the same N (what table --slurm passes).
+        Path single1 = dir.resolve("single1.npy");
+        assertEquals(0, run(concat(grid, "--out", single1.toString(), "--check-cell-points", "1")), lastErr);
+        Path merged1 = dir.resolve("merged1.npy");
+        List<String> merge1 = new ArrayList<>(merge.subList(0, 3));
+        merge1.addAll(List.of("--out", merged1.toString(), "--check-samples", "200", "--check-cell-points", "1"));
+        assertEquals(0, CairnMain.execute(new PrintWriter(new StringWriter()), new PrintWriter(err),
+            merge1.toArray(new String[0])), err.toString());
+        Object single1Acc = TableFiles.readJson(TableFiles.sidecarPath(single1)).get("accuracy");
+        assertEquals(single1Acc, TableFiles.readJson(TableFiles.sidecarPath(merged1)).get("accuracy"));
+        assertTrue(!single1Acc.equals(singleAcc), "1 point per cell is another report than the default 4");
     }
 
     private static String[] concat(String[] a, String... b) {

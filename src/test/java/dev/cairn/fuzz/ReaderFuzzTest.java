@@ -560,6 +560,63 @@ class ReaderFuzzTest {
         st.finish();
     }
 
+    /**
+     * The extra sbatch options file of {@code table --slurm N --slurm-sbatch FILE}: refused in one line or written
+     * as {@code #SBATCH} lines that carry no control character, come before the first command and never set what
+     * the scripts set themselves (array, dependency, output).
+     */
+    @Test
+    void slurmOptionsFile() {
+        Stats st = new Stats("slurm-options");
+        Mutator m = new Mutator(SEED + 9);
+        Path obj = write(dir.resolve("box.obj"), BOX_OBJ);
+        byte[] base = "# site options\n--partition=short\n--time=00:10:00\n#SBATCH --mem=1G\n\n--requeue\n"
+            .getBytes(StandardCharsets.UTF_8);
+        String[] hostile = {"--array=0-99", "--arr=1", "-a0-9", "-d afterany:1", "--dependency=afterok:1",
+            "--output=/dev/null", "-o x", "--chdir=/", "rm -rf /", "#SBATCH", "#SBATCH --array=1", "-", "--",
+            "--job-name=a b", "--comment=\u202eevil", "--mail-user=a@b", "\uFEFF--qos=x", "--wrap=\"id\""};
+        Path job = dir.resolve("slurm");
+        int n = cases(120);
+        for (int i = 0; i < n; i++) {
+            Path opts = write(dir.resolve("opts.txt"), m.mutateText(base, hostile));
+            deleteTree(job);
+            Outcome o = cli(st, "table", obj.toString(), "--density", "2000", "--grid", "box",
+                "--box=-2000,2000,-2000,2000,-2000,2000", "--nodes", "3", "--out", job.resolve("t.npy").toString(),
+                "--slurm", "2", "--slurm-sbatch", opts.toString());
+            if (o == null || o.exit != 0) {
+                continue;
+            }
+            for (String script : new String[] {"table-array.sbatch", "table-merge.sbatch"}) {
+                String text;
+                try {
+                    text = Files.readString(job.resolve("t.npy.slurm").resolve(script));
+                } catch (IOException e) {
+                    st.wrong++;
+                    st.example("no script", script + ": " + e);
+                    continue;
+                }
+                int firstCommand = text.indexOf("\nset -eu\n");
+                List<String> directives = text.lines().filter(l -> l.startsWith("#SBATCH")).toList();
+                boolean bad = firstCommand < 0 || text.lastIndexOf("\n#SBATCH") > firstCommand;
+                int arrays = 0;
+                for (String d : directives) {
+                    bad |= hasControl(d);
+                    String opt = d.substring("#SBATCH".length()).strip();
+                    arrays += opt.startsWith("--array=") ? 1 : 0;
+                    bad |= opt.startsWith("--dep") || opt.startsWith("-d") || opt.startsWith("-a")
+                        || (opt.startsWith("--output=") && !opt.startsWith("--output=" + job.resolve("t.npy.slurm")))
+                        || opt.startsWith("-o") || opt.startsWith("--arr") && !opt.startsWith("--array=0-1");
+                }
+                bad |= script.equals("table-array.sbatch") ? arrays != 1 : arrays != 0;
+                if (bad) {
+                    st.wrong++;
+                    st.example("bad script", script + ": " + String.join(" | ", directives));
+                }
+            }
+        }
+        st.finish();
+    }
+
     @Test
     void surveyDirectory() throws IOException {
         Stats st = new Stats("survey-dir setup");
