@@ -104,4 +104,21 @@ class DeployCommandTest {
         bad("'--velocity': 'NaN' is not a decimal number", "--release", "0,0,140", "--velocity", "0,NaN,0");
         bad("--release: expected 3", "--release", "0,140", "--velocity", "0,0,0");
     }
+
+    /**
+     * The usage line shows --release, --velocity and --restitution as options given once with one comma-separated
+     * value (picocli synopsis syntax: "[...]..." marks a repeatable option; common practice, no source).
+     */
+    @Test
+    void usageShowsVectorOptionsOnce() {
+        CliRun r = CliRun.of("deploy", "--help");
+        assertEquals(0, r.exit(), r.err());
+        String usage = r.out().substring(0, r.out().indexOf("Seeded Monte Carlo"));
+        for (String o : new String[] {"--release=X,Y,Z", "--velocity=VX,VY,VZ", "--restitution=EN,ET"}) {
+            assertTrue(usage.contains(o), usage);
+            assertFalse(usage.contains(o + "]..."), usage);
+            assertFalse(usage.contains(o + "["), usage);
+        }
+        assertFalse(usage.contains("[--release="), "required option shown once: " + usage);
+    }
 }
