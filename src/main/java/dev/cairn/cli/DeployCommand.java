@@ -122,6 +122,11 @@ public final class DeployCommand implements Callable<Integer> {
         + "'cairn table'; tricubic interpolation, the body's field outside the table) instead of the body's field.")
     Path table;
 
+    @Option(names = "--views", description = "Also render the rest points over a 3D view of the body coloured by "
+        + "slope (rest-points-3d.png, via the 'render' command, which surveys the body first); needs a display "
+        + "(e.g. xvfb-run), skipped with a warning without.")
+    boolean views;
+
     @Option(names = "--out", paramLabel = "DIR", description = "Output directory (default: deploy-out/).")
     Path out = Paths.get("deploy-out");
 
@@ -209,7 +214,56 @@ public final class DeployCommand implements Callable<Integer> {
             seconds));
         writeMap(out.resolve("map-landings.png"), body, prop.frame(), field, landings, sum, ds);
         report(spec.commandLine().getOut(), body, field, check, sum, seconds);
+        if (views) {
+            renderRestPoints(err());
+        }
         return 0;
+    }
+
+    private PrintWriter err() {
+        return spec.commandLine().getErr();
+    }
+
+    /**
+     * {@code rest-points-3d.png}: the rest points of {@code landings.csv} over an iso view coloured by slope, through
+     * the {@code render} subcommand (this package holds no JavaFX types) with the model and spin options given here.
+     */
+    private void renderRestPoints(PrintWriter err) {
+        Path png = out.resolve("rest-points-3d.png");
+        java.util.List<String> args = new java.util.ArrayList<>(java.util.List.of("render"));
+        picocli.CommandLine.ParseResult pr = spec.commandLine().getParseResult();
+        for (String p : pr.matchedPositionals().isEmpty() ? java.util.List.<String>of()
+            : pr.matchedPositionals().get(0).originalStringValues()) {
+            args.add(p);
+        }
+        for (picocli.CommandLine.Model.OptionSpec o : pr.matchedOptions()) {
+            if (!(o.userObject() instanceof java.lang.reflect.Field f)) {
+                continue;
+            }
+            Class<?> c = f.getDeclaringClass();
+            if (c != ModelOptions.class && c != SpinOptions.class && c.getEnclosingClass() != ModelOptions.class) {
+                continue;
+            }
+            if (o.arity().max() == 0) {
+                args.add(o.longestName());
+            } else {
+                for (String v : o.originalStringValues()) {
+                    args.add(o.longestName() + "=" + v);
+                }
+            }
+        }
+        args.addAll(java.util.List.of("--quantity", "slope", "--view", "iso", "--markers",
+            out.resolve("landings.csv").toString(), "--out", png.toString()));
+        java.io.StringWriter renderErr = new java.io.StringWriter();
+        int code = CairnMain.execute(new PrintWriter(new java.io.StringWriter()), new PrintWriter(renderErr),
+            args.toArray(new String[0]));
+        if (code != 0) {
+            err.println("cairn: warning: 3D view of the rest points skipped: " + renderErr.toString().strip()
+                .replaceFirst("^cairn: error: ", "").lines().reduce((a, b) -> b).orElse(""));
+        } else {
+            err.println("cairn: wrote " + png);
+        }
+        err.flush();
     }
 
     private static void writeCsv(Path file, List<Landing> ls) {

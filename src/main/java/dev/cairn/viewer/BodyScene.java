@@ -61,6 +61,7 @@ public final class BodyScene {
     private IntConsumer pickListener = f -> { };
     private int lastPick = -1;
     private final Group highlight = new Group();
+    private final Group markers = new Group();
     private int highlighted = -1;
     /** Colour of the picked-facet highlight: bright cyan (unlit, so it reads the same in both light modes). */
     public static final Color HIGHLIGHT = Color.rgb(0, 235, 255);
@@ -109,7 +110,8 @@ public final class BodyScene {
         camera.setVerticalFieldOfView(true);
         camera.getTransforms().add(cameraPose);
         highlight.setMouseTransparent(true);
-        Group world = new Group(surface, overlayRoot, highlight, camera, ambient, key);
+        markers.setMouseTransparent(true);
+        Group world = new Group(surface, overlayRoot, highlight, markers, camera, ambient, key);
         if (proxyView != null) {
             world.getChildren().add(proxyView);
         }
@@ -297,6 +299,33 @@ public final class BodyScene {
 
     public SurveyData survey() {
         return survey;
+    }
+
+    /** Colour of the marker points: a white that no colour ramp ends in, with a dark rim from the shading. */
+    static final Color MARKER = Color.rgb(255, 255, 255);
+
+    /**
+     * Shows small spheres at {@code xyz} (x, y, z triples, metres, model frame), e.g. the rest points of a
+     * deployment; radius 0.8 % of the body's radius. Replaces earlier markers; an empty array removes them.
+     */
+    public void setMarkers(double[] xyz) {
+        markers.getChildren().clear();
+        PhongMaterial m = new PhongMaterial(MARKER);
+        double r = 0.008 * geometry.radius();
+        for (int i = 0; i + 2 < xyz.length; i += 3) {
+            double[] p = geometry.toScene(new double[] {xyz[i], xyz[i + 1], xyz[i + 2]});
+            javafx.scene.shape.Sphere s = new javafx.scene.shape.Sphere(r, 8);
+            s.setMaterial(m);
+            s.setTranslateX(p[0]);
+            s.setTranslateY(p[1]);
+            s.setTranslateZ(p[2]);
+            markers.getChildren().add(s);
+        }
+    }
+
+    /** Number of marker points shown. */
+    public int markerCount() {
+        return markers.getChildren().size();
     }
 
     private void buildFixedOverlays() {

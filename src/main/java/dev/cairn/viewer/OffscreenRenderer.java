@@ -49,6 +49,7 @@ public final class OffscreenRenderer {
             q.limits());
         body.setColours(c.argb());
         body.setSurvey(q.survey());
+        body.setMarkers(q.markers());
         body.setLighting(q.lighting());
         for (Overlay o : q.overlays()) {
             body.setOverlay(o, true);
@@ -65,7 +66,9 @@ public final class OffscreenRenderer {
         legend.setBackground(new javafx.scene.layout.Background(new javafx.scene.layout.BackgroundFill(PANEL, null,
             null)));
         Label l1 = LegendView.label(q.geometry().name() + "  ·  " + q.quantity().label() + "  ·  view from "
-            + q.view().cliName() + "  ·  " + q.geometry().mesh().facetCount() + " facets  ·  Cairn " + dev.cairn.cli.VersionProvider.version(), 13, false);
+            + q.view().cliName() + "  ·  " + q.geometry().mesh().facetCount() + " facets"
+            + (q.markers().length > 0 ? "  ·  " + q.markers().length / 3 + " marked points (white)" : "")
+            + "  ·  Cairn " + dev.cairn.cli.VersionProvider.version(), 13, false);
         Label lp = LegendView.label(q.survey() == null ? "no survey" : q.survey().parametersLine(), 12, false);
         lp.setWrapText(true);
         lp.setMaxWidth(q.width() - 24);

@@ -67,6 +67,10 @@ public final class RenderCommand implements Callable<Integer> {
         + "principal-axes, body-axes, graticule, wireframe, zones, sites (comma-separated).")
     List<String> overlays;
 
+    @Option(names = "--markers", paramLabel = "FILE.csv", description = "Mark points of a CSV with columns x_m,y_m,"
+        + "z_m (model frame; with an outcome column only rows at rest), e.g. a deployment's landings.csv.")
+    java.nio.file.Path markers;
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -82,6 +86,7 @@ public final class RenderCommand implements Callable<Integer> {
                 ov.add(Overlay.parse(s));
             }
         }
+        double[] marks = markers == null ? new double[0] : MarkerPoints.read(markers);
         long tLoad = System.nanoTime();
         BodyModel body = model.load(spin);
         for (String w : body.warnings()) {
@@ -106,7 +111,7 @@ public final class RenderCommand implements Callable<Integer> {
                 + "' (written by a newer survey: run the survey again)");
         }
         RenderRequest req = new RenderRequest(geometry, data, q, new ColourLimits(min, max), v,
-            flat ? Lighting.FLAT : Lighting.SHADED, ov, wh[0], wh[1]);
+            flat ? Lighting.FLAT : Lighting.SHADED, ov, wh[0], wh[1], marks);
         long t0 = System.nanoTime();
         RenderJob.renderToFile(req, out);
         err.println(String.format(java.util.Locale.ROOT, "cairn: wrote %s (%dx%d, %s, view %s, %.1f s)", out, wh[0],

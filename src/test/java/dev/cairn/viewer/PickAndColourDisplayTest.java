@@ -51,7 +51,7 @@ class PickAndColourDisplayTest {
     }
 
     /** Facets seen well from the camera whose centroid's neighbourhood shows only that facet. */
-    private static java.util.List<Integer> wellSeen(BodyGeometry g, ViewState v, int[] vp, PixelReader px) {
+    static java.util.List<Integer> wellSeen(BodyGeometry g, ViewState v, int[] vp, PixelReader px) {
         double[] eye = v.eye();
         java.util.List<Integer> out = new java.util.ArrayList<>();
         for (int f = 0; f < g.mesh().facetCount(); f++) {
