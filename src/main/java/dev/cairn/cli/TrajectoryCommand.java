@@ -43,7 +43,7 @@ import picocli.CommandLine.Spec;
 /**
  * {@code cairn trajectory}: propagates initial states from a CSV file near the spinning body, with impact, escape and
  * altitude events; writes one CSV per trajectory, {@code events.json}, a PNG of the paths in three planes and a
- * legacy VTK polyline file. See docs/trajectories.md.
+ * legacy VTK file of line segments. See docs/trajectories.md.
  */
 @Command(name = "trajectory", mixinStandardHelpOptions = true,
     header = "Propagate trajectories near the body (impact, escape, altitude events; Jacobi drift).",
@@ -563,15 +563,22 @@ public final class TrajectoryCommand implements Callable<Integer> {
         return String.format(Locale.ROOT, "trajectory-%04d.csv", i + 1);
     }
 
-    /** Legacy VTK 3.0 ASCII PolyData: one polyline per trajectory, body-frame points, time as point data. */
+    /**
+     * Legacy VTK 3.0 ASCII unstructured grid (opens unaided in VTK, ParaView and meshio 5, which reads no
+     * polylines): each trajectory's body-frame points joined by line segments (VTK_LINE, cell type 3), the
+     * trajectory number (1-based, as in the CSV names) as cell data, time as point data.
+     */
     static void writeVtk(Path file, Trajectory[] ts) {
         AtomicFiles.write(file, o -> {
             long n = 0;
+            long segments = 0;
             for (Trajectory t : ts) {
                 n += t.rowCount();
+                segments += Math.max(0, t.rowCount() - 1);
             }
             StringBuilder sb = new StringBuilder();
-            sb.append("# vtk DataFile Version 3.0\ncairn trajectories, body frame, metres\nASCII\nDATASET POLYDATA\n");
+            sb.append("# vtk DataFile Version 3.0\ncairn trajectories, body frame, metres\nASCII\n"
+                + "DATASET UNSTRUCTURED_GRID\n");
             sb.append("POINTS ").append(n).append(" double\n");
             for (Trajectory t : ts) {
                 for (int r = 0; r < t.rowCount(); r++) {
@@ -581,15 +588,27 @@ public final class TrajectoryCommand implements Callable<Integer> {
                 }
                 flushIf(o, sb);
             }
-            sb.append("LINES ").append(ts.length).append(' ').append(n + ts.length).append('\n');
+            sb.append("CELLS ").append(segments).append(' ').append(3 * segments).append('\n');
             long base = 0;
             for (Trajectory t : ts) {
-                sb.append(t.rowCount());
-                for (int r = 0; r < t.rowCount(); r++) {
-                    sb.append(' ').append(base + r);
+                for (int r = 0; r + 1 < t.rowCount(); r++) {
+                    sb.append("2 ").append(base + r).append(' ').append(base + r + 1).append('\n');
                 }
-                sb.append('\n');
                 base += t.rowCount();
+                flushIf(o, sb);
+            }
+            sb.append("CELL_TYPES ").append(segments).append('\n');
+            for (long k = 0; k < segments; k++) {
+                sb.append("3\n");
+                if ((k & 0xFFFF) == 0) {
+                    flushIf(o, sb);
+                }
+            }
+            sb.append("CELL_DATA ").append(segments).append("\nSCALARS trajectory int 1\nLOOKUP_TABLE default\n");
+            for (int i = 0; i < ts.length; i++) {
+                for (int r = 0; r + 1 < ts[i].rowCount(); r++) {
+                    sb.append(i + 1).append('\n');
+                }
                 flushIf(o, sb);
             }
             sb.append("POINT_DATA ").append(n).append("\nSCALARS t_s double 1\nLOOKUP_TABLE default\n");

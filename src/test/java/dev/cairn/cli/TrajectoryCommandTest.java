@@ -68,9 +68,12 @@ class TrajectoryCommandTest {
         int rows1 = Files.readAllLines(out.resolve("trajectory-0002.csv")).size() - 1;
         List<String> vtk = Files.readAllLines(out.resolve("trajectories.vtk"));
         assertEquals("# vtk DataFile Version 3.0", vtk.get(0));
-        assertEquals("DATASET POLYDATA", vtk.get(3));
+        assertEquals("DATASET UNSTRUCTURED_GRID", vtk.get(3));
         assertEquals("POINTS " + (rows0 + rows1) + " double", vtk.get(4));
-        assertTrue(vtk.contains("LINES 2 " + (rows0 + rows1 + 2)));
+        int segs = rows0 - 1 + rows1 - 1;
+        assertTrue(vtk.contains("CELLS " + segs + " " + 3 * segs), "one 2-point line cell per step");
+        assertTrue(vtk.contains("CELL_TYPES " + segs));
+        assertTrue(vtk.contains("CELL_DATA " + segs));
         BufferedImage img = ImageIO.read(out.resolve("paths.png").toFile());
         assertEquals(3 * TrajectoryCommand.PANEL + 40, img.getWidth());
         assertTrue(run.out().contains("Caution"));
@@ -110,6 +113,37 @@ class TrajectoryCommandTest {
             dir.resolve("out-bad").toString());
         assertEquals(2, both.exit(), both.err());
         assertTrue(both.oneLineError(), both.err());
+    }
+
+    /**
+     * trajectories.vtk opens unaided in VTK 9 (Debian python3-vtk9) and meshio 5 (python3-meshio, which reads no
+     * polylines): line cells, one per output step, with the trajectory number and time.
+     */
+    @Test
+    void vtkFileOpensInVtkAndMeshio() throws Exception {
+        dev.cairn.PythonTools.requireModules("numpy", "vtk", "meshio");
+        String code = """
+            import json, sys, vtk, meshio
+            r = vtk.vtkUnstructuredGridReader(); r.SetFileName(sys.argv[1]); r.Update(); o = r.GetOutput()
+            m = meshio.read(sys.argv[1])
+            print(json.dumps({"vtk_cells": o.GetNumberOfCells(), "vtk_type": o.GetCellType(0),
+                "vtk_points": o.GetNumberOfPoints(),
+                "meshio": [[b.type, int(b.data.shape[0])] for b in m.cells],
+                "point_data": sorted(m.point_data), "cell_data": sorted(m.cell_data)}))
+            """;
+        Path out = dir.resolve("out1");
+        int rows0 = Files.readAllLines(out.resolve("trajectory-0001.csv")).size() - 1;
+        int rows1 = Files.readAllLines(out.resolve("trajectory-0002.csv")).size() - 1;
+        dev.cairn.PythonTools.Run r = dev.cairn.PythonTools.script(code, out.resolve("trajectories.vtk").toString());
+        assertEquals(0, r.exit(), r.err());
+        JsonNode j = new ObjectMapper().readTree(r.out());
+        int segs = rows0 - 1 + rows1 - 1;
+        assertEquals(segs, j.get("vtk_cells").asInt());
+        assertEquals(3, j.get("vtk_type").asInt(), "VTK_LINE");
+        assertEquals(rows0 + rows1, j.get("vtk_points").asInt());
+        assertEquals("[[\"line\"," + segs + "]]", j.get("meshio").toString());
+        assertEquals("[\"t_s\"]", j.get("point_data").toString());
+        assertEquals("[\"trajectory\"]", j.get("cell_data").toString());
     }
 
     @Test
