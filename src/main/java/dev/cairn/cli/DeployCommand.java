@@ -210,6 +210,13 @@ public final class DeployCommand implements Callable<Integer> {
         spinOptions.axis();
         checkShardOptions();
         DeployShards.Shard part = shard == null ? null : DeployShards.parse(shard, ds.count());
+        if (mergeShards != null) {
+            Path o = out.toAbsolutePath().normalize();
+            for (Path d : mergeShards) {
+                refuse(d.toAbsolutePath().normalize().equals(o), "--out: " + dev.cairn.io.Messages.path(out)
+                    + " is one of the --merge-shards folders; write the merge elsewhere");
+            }
+        }
         if (model.tolerance == null && !model.exact && table == null) {
             model.tolerance = DEFAULT_FIELD_TOLERANCE;
         }

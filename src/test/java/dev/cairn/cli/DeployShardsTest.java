@@ -120,6 +120,8 @@ class DeployShardsTest {
         assertEquals(0, s.exit(), s.err());
         bad("overlaps another shard", base("5"), "--merge-shards", shards("s1", "h1", "s2", "s3"), "--out",
             out.toString());
+        bad("is one of the --merge-shards folders", base("5"), "--merge-shards", shards("s1", "s2", "s3"), "--out",
+            dir.resolve("s2").toString());
         bad("no shard.json", base("5"), "--merge-shards", shards("s1", "s2") + "," + dir, "--out", out.toString());
 
         // a damaged row: a number changed, a field dropped, a release state not of these settings
