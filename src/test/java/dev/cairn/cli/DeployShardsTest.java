@@ -83,6 +83,7 @@ class DeployShardsTest {
         two.set(two.indexOf("--threads") + 1, "2");
         CliRun m = run(two, "--merge-shards", shards("s3", "s1", "s2"), "--out", dir.resolve("merged").toString());
         assertEquals(0, m.exit(), m.err());
+        assertTrue(m.out().contains("Merged       3 shards read in"), m.out());
         assertArrayEquals(Files.readAllBytes(dir.resolve("single").resolve("landings.csv")),
             Files.readAllBytes(dir.resolve("merged").resolve("landings.csv")));
         ObjectMapper om = new ObjectMapper();
