@@ -628,9 +628,9 @@ public final class DeployCommand implements Callable<Integer> {
         o.printf(Locale.ROOT, "First impact speed mean %.4g max %.4g m/s; max Jacobi drift per arc %.2e (relative)%n",
             s.meanFirstSpeed(), s.maxFirstSpeed(), s.maxJacobiDrift());
         if (mergeShards != null) {
-            o.printf(Locale.ROOT, "Merged       %d shards read in %.3f s (%d steps, %.0f field evaluations per sample in "
-                + "the shards); outputs in %s%n", mergeShards.size(), seconds, s.totalSteps(), s.totalEvaluations() / n,
-                out.toAbsolutePath());
+            o.printf(Locale.ROOT, "Merged       %d shards read in %.3f s (%d steps, %.0f field evaluations per sample "
+                + "in the shards); outputs in %s%n", mergeShards.size(), seconds, s.totalSteps(),
+                s.totalEvaluations() / n, out.toAbsolutePath());
         } else {
             o.printf(Locale.ROOT, "Speed        %.3f s, %d steps (%.0f steps/s), %.0f field evaluations per sample; "
                 + "outputs in %s%n", seconds, s.totalSteps(), s.totalSteps() / Math.max(seconds, 1e-9),

@@ -14,10 +14,11 @@ import java.util.concurrent.TimeUnit;
 import java.util.regex.Pattern;
 
 /**
- * A table or a deployment Monte Carlo computed as a Slurm job array ({@link Kind}). For a table: writes an sbatch array script whose task {@code k} (0-based,
- * {@code SLURM_ARRAY_TASK_ID}) runs the same {@code cairn table} command with {@code --shard k+1/N} into its own
- * shard file, and a merge script that runs {@code cairn table-merge} on the N shards; optionally submits both, the
- * merge with {@code --dependency=afterok:ARRAYJOB} so it starts only when every task succeeded.
+ * A table or a deployment Monte Carlo computed as a Slurm job array ({@link Kind}). For a table: writes an sbatch
+ * array script whose task {@code k} (0-based, {@code SLURM_ARRAY_TASK_ID}) runs the same {@code cairn table}
+ * command with {@code --shard k+1/N} into its own shard file, and a merge script that runs {@code cairn table-merge}
+ * on the N shards; optionally submits both, the merge with {@code --dependency=afterok:ARRAYJOB} so it starts only
+ * when every task succeeded.
  *
  * <p>Everything lives in one job folder ({@code OUT.slurm/} beside the table): the two scripts, the shards
  * ({@code shard-IIII-of-NNNN.npy} with their sidecars and checkpoints) and {@code log/}. Paths in the scripts are
@@ -220,8 +221,8 @@ public final class SlurmArray {
     private void header(StringBuilder b, String what, String jobName, String log) {
         b.append("#!/bin/bash\n");
         b.append("# ").append(what).append("\n");
-        b.append("# Written by 'cairn ").append(kind.command()).append(" --slurm ").append(tasks).append("'. Submit both (the merge runs only when "
-            + "every shard succeeded):\n");
+        b.append("# Written by 'cairn ").append(kind.command()).append(" --slurm ").append(tasks)
+            .append("'. Submit both (the merge runs only when every shard succeeded):\n");
         b.append("#   ").append(submitLine()).append('\n');
         b.append("# Caution: results must be verified independently before operational use; mission rules and the\n");
         b.append("# responsible flight-dynamics authority decide.\n");

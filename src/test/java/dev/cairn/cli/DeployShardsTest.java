@@ -222,6 +222,11 @@ class DeployShardsTest {
         want.addAll(List.of("--out", out.toAbsolutePath().toString()));
         assertEquals(want, bash(job.mergeScript(), null));
         assertEquals("deploy-merge.sbatch", job.mergeScript().getFileName().toString());
+        // a comma in the job folder would split a --merge-shards value: refused with one line
+        dev.cairn.io.InputException e = org.junit.jupiter.api.Assertions.assertThrows(
+            dev.cairn.io.InputException.class, () -> new SlurmArray(SlurmArray.Kind.DEPLOY, 3, 1, List.of("x"), task,
+                merge, dir.resolve("a,b").resolve("dep"), List.of()));
+        assertTrue(e.getMessage().contains("has a comma") && !e.getMessage().contains("\n"), e.getMessage());
     }
 
     @Test
