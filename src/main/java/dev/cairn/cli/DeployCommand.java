@@ -251,6 +251,13 @@ public final class DeployCommand implements Callable<Integer> {
         }
         double seconds = (System.nanoTime() - t0) / 1e9;
         if (part != null) {
+            // shard.json last, and an old one removed first: a folder with shard.json holds a finished shard
+            try {
+                java.nio.file.Files.deleteIfExists(out.resolve(DeployShards.SHARD_JSON));
+            } catch (java.io.IOException e) {
+                throw new InputException("--out: cannot remove the old " + out.resolve(DeployShards.SHARD_JSON) + ": "
+                    + e.getMessage());
+            }
             LandingsCsv.write(out.resolve("landings.csv"), landings);
             DeployShards.writeShardJson(out, DeployShards.fingerprint(body, field, table, integratorTolerance, ds),
                 part);
