@@ -134,6 +134,36 @@ public final class DeployCommand implements Callable<Integer> {
         + "default: all processors).")
     int threads = ParallelChunks.defaultThreads();
 
+    @Option(names = "--shard", paramLabel = "I/N", description = "Compute only shard I of N: a contiguous range of "
+        + "sample indices (the split rule of table shards); writes that range's landings.csv rows and shard.json "
+        + "(settings fingerprint and range) to --out, for --merge-shards. Results do not depend on the split.")
+    String shard;
+
+    @Option(names = "--merge-shards", paramLabel = "DIR", split = ",", description = "Instead of propagating, read "
+        + "the landings of these shard folders (from --shard; comma-separated or repeated; same options as the "
+        + "shards) and write every output of a single run; landings.csv is byte-identical to a single run's.")
+    List<Path> mergeShards;
+
+    @Option(names = "--slurm", paramLabel = "N", description = "Instead of computing, write a Slurm job array of N "
+        + "shards (1 to " + SlurmArray.MAX_TASKS + ") and a merge job that runs after all of them, in OUT.slurm/ "
+        + "beside --out; see docs/cluster.md.")
+    Integer slurm;
+
+    @Option(names = "--slurm-submit", description = "With --slurm: submit both jobs with sbatch and print their ids.")
+    boolean slurmSubmit;
+
+    @Option(names = "--slurm-cpus", paramLabel = "C", description = "With --slurm: CPUs per task (--cpus-per-task; "
+        + "also the --threads of each task unless --threads is given; default ${DEFAULT-VALUE}).")
+    int slurmCpus = 1;
+
+    @Option(names = "--slurm-sbatch", paramLabel = "FILE", description = "With --slurm: extra sbatch options for both "
+        + "scripts, one per line (e.g. --partition=short, --time=01:00:00).")
+    Path slurmSbatch;
+
+    @Option(names = "--slurm-sbatch-command", hidden = true, paramLabel = "PROGRAM", description = "The sbatch program "
+        + "(tests).")
+    String sbatchCommand = "sbatch";
+
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
@@ -178,6 +208,15 @@ public final class DeployCommand implements Callable<Integer> {
         DeploymentSettings ds = settings();
         spinOptions.periodSeconds();
         spinOptions.axis();
+        checkShardOptions();
+        DeployShards.Shard part = shard == null ? null : DeployShards.parse(shard, ds.count());
+        if (mergeShards != null) {
+            Path o = out.toAbsolutePath().normalize();
+            for (Path d : mergeShards) {
+                refuse(d.toAbsolutePath().normalize().equals(o), "--out: " + dev.cairn.io.Messages.path(out)
+                    + " is one of the --merge-shards folders; write the merge elsewhere");
+            }
+        }
         if (model.tolerance == null && !model.exact && table == null) {
             model.tolerance = DEFAULT_FIELD_TOLERANCE;
         }
@@ -185,6 +224,9 @@ public final class DeployCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
+        }
+        if (slurm != null) {
+            return slurm(body, ds, err);
         }
         FieldModel field = TrajectoryCommand.field(body, table);
         MotionSettings ms = MotionSettings.defaults(Frame.BODY).withTolerances(integratorTolerance,
@@ -198,10 +240,33 @@ public final class DeployCommand implements Callable<Integer> {
         }
         long t0 = System.nanoTime();
         List<Landing> landings;
-        try (ProgressBar bar = new ProgressBar("deploy")) {
-            landings = Deployment.run(prop, ds, threads, bar);
+        if (mergeShards != null) {
+            landings = DeployShards.merge(mergeShards, DeployShards.fingerprint(body, field, table,
+                integratorTolerance, ds), ds, body.mesh().facetCount());
+        } else {
+            try (ProgressBar bar = new ProgressBar("deploy")) {
+                landings = part == null ? Deployment.run(prop, ds, threads, bar)
+                    : Deployment.run(prop, ds, part.first(), part.end(), threads, bar);
+            }
         }
         double seconds = (System.nanoTime() - t0) / 1e9;
+        if (part != null) {
+            // shard.json last, and an old one removed first: a folder with shard.json holds a finished shard
+            try {
+                java.nio.file.Files.deleteIfExists(out.resolve(DeployShards.SHARD_JSON));
+            } catch (java.io.IOException e) {
+                throw new InputException("--out: cannot remove the old " + out.resolve(DeployShards.SHARD_JSON) + ": "
+                    + e.getMessage());
+            }
+            LandingsCsv.write(out.resolve("landings.csv"), landings);
+            DeployShards.writeShardJson(out, DeployShards.fingerprint(body, field, table, integratorTolerance, ds),
+                part);
+            err.printf(Locale.ROOT, "cairn: shard %d/%d: samples %d to %d of %d in %.3f s; wrote %s and %s%n",
+                part.index(), part.count(), part.first(), part.end() - 1, ds.count(), seconds,
+                out.resolve("landings.csv"), out.resolve(DeployShards.SHARD_JSON));
+            err.flush();
+            return 0;
+        }
         DeploymentSummary sum = DeploymentSummary.of(landings, prop.frame());
         double[] pts = new double[3 * (landings.size() + 1)];
         for (int i = 0; i < landings.size(); i++) {
@@ -209,7 +274,7 @@ public final class DeployCommand implements Callable<Integer> {
         }
         System.arraycopy(r, 0, pts, 3 * landings.size(), 3);
         FieldCheck check = FieldCheck.measure(field, pts, FieldCheck.DEFAULT_SAMPLES, 1, threads);
-        writeCsv(out.resolve("landings.csv"), landings);
+        LandingsCsv.write(out.resolve("landings.csv"), landings);
         TrajectoryCommand.writeJson(out.resolve("summary.json"), summaryJson(body, field, check, prop, ds, sum,
             seconds));
         writeMap(out.resolve("map-landings.png"), body, prop.frame(), field, landings, sum, ds);
@@ -217,6 +282,97 @@ public final class DeployCommand implements Callable<Integer> {
         if (views) {
             renderRestPoints(err());
         }
+        return 0;
+    }
+
+    /** Refuses combinations of --shard, --merge-shards, --slurm and --views that do not go together. */
+    private void checkShardOptions() {
+        refuse(shard != null && mergeShards != null, "--shard: not with --merge-shards (merge the shards in a "
+            + "separate run)");
+        refuse(shard != null && views, "--views: not with --shard (give it to the merge)");
+        if (slurm == null) {
+            refuse(slurmSubmit || slurmSbatch != null || slurmCpus != 1,
+                "--slurm-submit, --slurm-cpus and --slurm-sbatch go with --slurm N");
+            return;
+        }
+        refuse(shard != null, "--slurm: not with --shard (each task of the array computes one shard)");
+        refuse(mergeShards != null, "--slurm: not with --merge-shards (the array writes its own merge job)");
+        if (slurm < 1 || slurm > SlurmArray.MAX_TASKS) {
+            throw new InputException("--slurm: expected 1 to " + SlurmArray.MAX_TASKS + " array tasks, got " + slurm);
+        }
+        if (slurm > count) {
+            throw new InputException("--slurm: " + slurm + " shards for " + count + " samples (--count); give at "
+                + "most one shard per sample");
+        }
+        if (slurmCpus < 1 || slurmCpus > SlurmArray.MAX_CPUS) {
+            throw new InputException("--slurm-cpus: expected 1 to " + SlurmArray.MAX_CPUS + " CPUs per task, got "
+                + slurmCpus);
+        }
+    }
+
+    private static void refuse(boolean bad, String message) {
+        if (bad) {
+            throw new InputException(message);
+        }
+    }
+
+    /** Options not passed on to the tasks and the merge of a Slurm array (they belong to --slurm or are set here). */
+    private static final java.util.Set<String> NOT_PASSED = java.util.Set.of("--slurm", "--slurm-submit",
+        "--slurm-cpus", "--slurm-sbatch", "--slurm-sbatch-command", "--out", "--threads", "--shard", "--merge-shards",
+        "--views");
+
+    /** --slurm N: writes (and with --slurm-submit submits) the job array and its merge job; computes nothing. */
+    private int slurm(BodyModel body, DeploymentSettings ds, PrintWriter err) {
+        List<String> sbatchOptions = slurmSbatch != null ? SlurmArray.readOptions(slurmSbatch) : List.of();
+        picocli.CommandLine.ParseResult pr = spec.commandLine().getParseResult();
+        String taskThreads = String.valueOf(pr.hasMatchedOption("--threads") ? threads : slurmCpus);
+        List<String> args = new java.util.ArrayList<>(List.of("deploy",
+            body.source().toAbsolutePath().normalize().toString()));
+        for (picocli.CommandLine.Model.OptionSpec o : pr.matchedOptions()) {
+            if (NOT_PASSED.contains(o.longestName())) {
+                continue;
+            }
+            if (o.arity().max() == 0) {
+                boolean on = Boolean.TRUE.equals(o.getValue());
+                if (o.negatable()) {
+                    args.add(on ? o.longestName() : o.longestName().replaceFirst("^--", "--no-"));
+                } else if (on) {
+                    args.add(o.longestName());
+                }
+                continue;
+            }
+            for (String v : o.originalStringValues()) {
+                // NAME=VALUE, one word: a value that starts with '-' (a negative coordinate) is no option
+                args.add(o.longestName() + "=" + (o.type() == Path.class
+                    ? Path.of(v).toAbsolutePath().normalize().toString() : v));
+            }
+        }
+        args.addAll(List.of("--threads", taskThreads));
+        List<String> merge = new java.util.ArrayList<>(args);
+        if (views) {
+            merge.add("--views");
+        }
+        SlurmArray job = new SlurmArray(SlurmArray.Kind.DEPLOY, slurm, slurmCpus, SlurmArray.launcher(), args, merge,
+            out, sbatchOptions);
+        job.write();
+        int[] first = dev.cairn.tables.TableJob.shardRange(ds.count(), 1, slurm);
+        err.printf(Locale.ROOT, "cairn: wrote %s and %s: %d task(s) x %d CPU(s), about %d of %d samples each; shards "
+            + "and logs go to %s%n", job.arrayScript().getFileName(), job.mergeScript().getFileName(), slurm,
+            slurmCpus, first[1] - first[0], ds.count(), job.dir());
+        PrintWriter outw = spec.commandLine().getOut();
+        if (!slurmSubmit) {
+            err.println("cairn: submit with: " + job.submitLine());
+            err.flush();
+            return 0;
+        }
+        err.flush();
+        SlurmArray.Submission sub = job.submit(sbatchCommand);
+        err.printf(Locale.ROOT, "cairn: submitted array job %s (%d tasks) and merge job %s (runs after all tasks "
+            + "succeed; writes %s)%n", sub.arrayJob(), slurm, sub.mergeJob(), out);
+        outw.println("array_job_id " + sub.arrayJob());
+        outw.println("merge_job_id " + sub.mergeJob());
+        outw.flush();
+        err.flush();
         return 0;
     }
 
@@ -264,38 +420,6 @@ public final class DeployCommand implements Callable<Integer> {
             err.println("cairn: wrote " + png);
         }
         err.flush();
-    }
-
-    private static void writeCsv(Path file, List<Landing> ls) {
-        AtomicFiles.write(file, o -> {
-            StringBuilder sb = new StringBuilder(1 << 16);
-            sb.append("sample,outcome,x_m,y_m,z_m,facet,lat_deg,lon_deg,time_s,bounces,first_impact_speed_m_s,"
-                + "first_incidence_deg,slope_deg,start_x_m,start_y_m,start_z_m,start_vx_m_s,start_vy_m_s,"
-                + "start_vz_m_s,max_jacobi_drift_rel,steps,field_evaluations\n");
-            for (Landing l : ls) {
-                double[] p = l.position();
-                double[] s = l.start();
-                sb.append(l.sample()).append(',').append(l.outcome().key());
-                for (double x : new double[] {p[0], p[1], p[2]}) {
-                    sb.append(',').append(x);
-                }
-                sb.append(',').append(l.facet());
-                for (double x : new double[] {l.latDeg(), l.lonDeg(), l.time()}) {
-                    sb.append(',').append(x);
-                }
-                sb.append(',').append(l.bounces());
-                for (double x : new double[] {l.firstImpactSpeed(), l.firstIncidenceDeg(), l.slopeDeg(), s[0], s[1],
-                    s[2], s[3], s[4], s[5], l.maxJacobiDrift()}) {
-                    sb.append(',').append(x);
-                }
-                sb.append(',').append(l.steps()).append(',').append(l.fieldEvaluations()).append('\n');
-                if (sb.length() > 1 << 20) {
-                    o.write(sb.toString().getBytes(StandardCharsets.UTF_8));
-                    sb.setLength(0);
-                }
-            }
-            o.write(sb.toString().getBytes(StandardCharsets.UTF_8));
-        });
     }
 
     private static Map<String, Object> summaryJson(BodyModel body, FieldModel field, FieldCheck check, Propagator p,
@@ -510,9 +634,15 @@ public final class DeployCommand implements Callable<Integer> {
         }
         o.printf(Locale.ROOT, "First impact speed mean %.4g max %.4g m/s; max Jacobi drift per arc %.2e (relative)%n",
             s.meanFirstSpeed(), s.maxFirstSpeed(), s.maxJacobiDrift());
-        o.printf(Locale.ROOT, "Speed        %.3f s, %d steps (%.0f steps/s), %.0f field evaluations per sample; "
-            + "outputs in %s%n", seconds, s.totalSteps(), s.totalSteps() / Math.max(seconds, 1e-9),
-            s.totalEvaluations() / n, out.toAbsolutePath());
+        if (mergeShards != null) {
+            o.printf(Locale.ROOT, "Merged       %d shards read in %.3f s (%d steps, %.0f field evaluations per sample "
+                + "in the shards); outputs in %s%n", mergeShards.size(), seconds, s.totalSteps(),
+                s.totalEvaluations() / n, out.toAbsolutePath());
+        } else {
+            o.printf(Locale.ROOT, "Speed        %.3f s, %d steps (%.0f steps/s), %.0f field evaluations per sample; "
+                + "outputs in %s%n", seconds, s.totalSteps(), s.totalSteps() / Math.max(seconds, 1e-9),
+                s.totalEvaluations() / n, out.toAbsolutePath());
+        }
         o.println("Caution: " + TrajectoryCommand.CAUTION);
         o.flush();
     }

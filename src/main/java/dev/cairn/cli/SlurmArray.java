@@ -14,16 +14,22 @@ import java.util.concurrent.TimeUnit;
 import java.util.regex.Pattern;
 
 /**
- * A table computed as a Slurm job array: writes an sbatch array script whose task {@code k} (0-based,
- * {@code SLURM_ARRAY_TASK_ID}) runs the same {@code cairn table} command with {@code --shard k+1/N} into its own
- * shard file, and a merge script that runs {@code cairn table-merge} on the N shards; optionally submits both, the
- * merge with {@code --dependency=afterok:ARRAYJOB} so it starts only when every task succeeded.
+ * A table or a deployment Monte Carlo computed as a Slurm job array ({@link Kind}). For a table: writes an sbatch
+ * array script whose task {@code k} (0-based, {@code SLURM_ARRAY_TASK_ID}) runs the same {@code cairn table}
+ * command with {@code --shard k+1/N} into its own shard file, and a merge script that runs {@code cairn table-merge}
+ * on the N shards; optionally submits both, the merge with {@code --dependency=afterok:ARRAYJOB} so it starts only
+ * when every task succeeded.
  *
  * <p>Everything lives in one job folder ({@code OUT.slurm/} beside the table): the two scripts, the shards
  * ({@code shard-IIII-of-NNNN.npy} with their sidecars and checkpoints) and {@code log/}. Paths in the scripts are
  * absolute, every command argument is shell-quoted, and the scripts are written atomically. This class holds no
  * field arithmetic: the shards and their merge are those of {@code --shard I/N} and {@code table-merge}, so the merged
  * data file is byte-identical to a single run (see docs/tables.md and docs/cluster.md).
+ *
+ * <p>For a deployment ({@link Kind#DEPLOY}) task {@code k} runs {@code cairn deploy ... --shard k+1/N} into the shard
+ * folder {@code shard-IIII-of-NNNN/} of the job folder, and the merge script runs the same {@code cairn deploy} with
+ * one {@code --merge-shards DIR} per shard and the final {@code --out}; deployments have no checkpoints (a failed
+ * task is simply run again).
  */
 public final class SlurmArray {
     /** Largest array accepted: Slurm's default MaxArraySize is 1001 (indexes 0..1000). */
@@ -44,6 +50,26 @@ public final class SlurmArray {
     private static final List<String> RESERVED = List.of("--array", "-a", "--dependency", "-d", "--output", "-o",
         "--error", "-e", "--chdir", "-D", "--parsable", "--wait", "-W", "--cpus-per-task", "-c");
 
+    /** What the array computes: names of the scripts, shards, logs and the task and merge command lines. */
+    public enum Kind {
+        /** {@code cairn table}: shards are .npy files, the merge is {@code table-merge}, tasks resume checkpoints. */
+        TABLE("table"),
+        /** {@code cairn deploy}: shards are folders, the merge is {@code deploy --merge-shards}. */
+        DEPLOY("deploy");
+
+        private final String command;
+
+        Kind(String command) {
+            this.command = command;
+        }
+
+        /** The Cairn command: table or deploy. */
+        public String command() {
+            return command;
+        }
+    }
+
+    private final Kind kind;
     private final int tasks;
     private final int cpus;
     private final List<String> launcher;
@@ -64,6 +90,18 @@ public final class SlurmArray {
      */
     public SlurmArray(int tasks, int cpus, List<String> launcher, List<String> tableArgs, List<String> mergeArgs,
                       Path out, List<String> sbatchOptions) {
+        this(Kind.TABLE, tasks, cpus, launcher, tableArgs, mergeArgs, out, sbatchOptions);
+    }
+
+    /**
+     * A job array of {@code kind}. For {@link Kind#DEPLOY}: {@code taskArgs} is {@code deploy} and its arguments
+     * without {@code --out}, {@code --shard} and {@code --merge-shards}; {@code mergeArgs} are the whole merge command
+     * line ({@code deploy} and its arguments) to which the shards and {@code --out} are appended; {@code out} is the
+     * output folder of the merge.
+     */
+    public SlurmArray(Kind kind, int tasks, int cpus, List<String> launcher, List<String> tableArgs,
+                      List<String> mergeArgs, Path out, List<String> sbatchOptions) {
+        this.kind = kind;
         if (tasks < 1 || tasks > MAX_TASKS) {
             throw new InputException("--slurm: expected 1 to " + MAX_TASKS + " array tasks, got " + tasks);
         }
@@ -88,6 +126,10 @@ public final class SlurmArray {
             requireArgument(w);
         }
         requireDirectivePath(dir);
+        if (kind == Kind.DEPLOY && dir.toString().contains(",")) {
+            throw new InputException("--slurm: the job folder " + Messages.path(dir) + " has a comma, which "
+                + "--merge-shards would take for a list separator; choose an --out path without commas");
+        }
     }
 
     /** The job folder of table {@code out}: {@code OUT.slurm} beside it. */
@@ -101,24 +143,28 @@ public final class SlurmArray {
     }
 
     public Path arrayScript() {
-        return dir.resolve("table-array.sbatch");
+        return dir.resolve(kind.command() + "-array.sbatch");
     }
 
     public Path mergeScript() {
-        return dir.resolve("table-merge.sbatch");
+        return dir.resolve(kind.command() + "-merge.sbatch");
     }
 
     public Path logDir() {
         return dir.resolve("log");
     }
 
-    /** Shard file {@code index} (1-based). */
+    /** Shard file (table) or folder (deploy) {@code index} (1-based). */
     public Path shard(int index) {
         return dir.resolve(shardName(index));
     }
 
     private String shardName(int index) {
-        return String.format(Locale.ROOT, "shard-%04d-of-%04d.npy", index, tasks);
+        return String.format(Locale.ROOT, shardPattern(), index, tasks);
+    }
+
+    private String shardPattern() {
+        return kind == Kind.TABLE ? "shard-%04d-of-%04d.npy" : "shard-%04d-of-%04d";
     }
 
     /** One POSIX-shell word for {@code s}: bare when it holds only safe characters, else in single quotes. */
@@ -175,8 +221,8 @@ public final class SlurmArray {
     private void header(StringBuilder b, String what, String jobName, String log) {
         b.append("#!/bin/bash\n");
         b.append("# ").append(what).append("\n");
-        b.append("# Written by 'cairn table --slurm ").append(tasks).append("'. Submit both (the merge runs only when "
-            + "every shard succeeded):\n");
+        b.append("# Written by 'cairn ").append(kind.command()).append(" --slurm ").append(tasks)
+            .append("'. Submit both (the merge runs only when every shard succeeded):\n");
         b.append("#   ").append(submitLine()).append('\n');
         b.append("# Caution: results must be verified independently before operational use; mission rules and the\n");
         b.append("# responsible flight-dynamics authority decide.\n");
@@ -195,8 +241,9 @@ public final class SlurmArray {
     /** The array script: task k computes shard k+1 of N. */
     public String arrayText() {
         StringBuilder b = new StringBuilder();
-        header(b, "Cairn table as a Slurm job array: task k (0-based) computes shard k+1 of " + tasks + ".",
-            "cairn-table", "table-%A_%a.out");
+        String c = kind.command();
+        header(b, "Cairn " + c + " as a Slurm job array: task k (0-based) computes shard k+1 of " + tasks + ".",
+            "cairn-" + c, c + "-%A_%a.out");
         b.append("#SBATCH --array=0-").append(tasks - 1).append('\n');
         extraOptions(b);
         b.append("set -eu\n");
@@ -206,7 +253,13 @@ public final class SlurmArray {
             + "esac\n");
         b.append("if [ \"$k\" -ge \"$n\" ]; then echo \"cairn: task $k is beyond the $n shards\" >&2; exit 2; fi\n");
         b.append("i=$((k + 1))\n");
-        b.append("shard=").append(quote(dir.toString())).append("/$(printf 'shard-%04d-of-%04d.npy' \"$i\" \"$n\")\n");
+        b.append("shard=").append(quote(dir.toString())).append("/$(printf '").append(shardPattern())
+            .append("' \"$i\" \"$n\")\n");
+        if (kind == Kind.DEPLOY) {
+            b.append("exec ").append(launch()).append(" ").append(words(tableArgs))
+                .append(" --shard \"$i/$n\" --out \"$shard\"\n");
+            return b.toString();
+        }
         b.append("# a requeued or resubmitted task continues from its checkpoints (a different job there is refused)\n");
         b.append("resume=\n");
         b.append("if [ -f \"$shard.partial/job.json\" ]; then resume=--resume; fi\n");
@@ -218,10 +271,20 @@ public final class SlurmArray {
     /** The merge script: joins the N shards into the table. */
     public String mergeText() {
         StringBuilder b = new StringBuilder();
-        header(b, "Cairn table: merges the " + tasks + " shards of the job array into " + out.getFileName() + ".",
-            "cairn-table-merge", "merge-%j.out");
+        header(b, "Cairn " + kind.command() + ": merges the " + tasks + " shards of the job array into "
+            + out.getFileName() + ".", "cairn-" + kind.command() + "-merge", "merge-%j.out");
         extraOptions(b);
         b.append("set -eu\n");
+        if (kind == Kind.DEPLOY) {
+            List<String> m = new ArrayList<>(mergeArgs);
+            for (int i = 1; i <= tasks; i++) {
+                m.add("--merge-shards=" + shard(i));
+            }
+            m.add("--out");
+            m.add(out.toString());
+            b.append("exec ").append(launch()).append(" ").append(words(m)).append('\n');
+            return b.toString();
+        }
         List<String> m = new ArrayList<>(List.of("table-merge"));
         for (int i = 1; i <= tasks; i++) {
             m.add(shard(i).toString());

@@ -75,15 +75,32 @@ public final class Deployment {
      */
     public static List<Landing> run(Propagator propagator, DeploymentSettings s, int threads,
                                     ProgressListener progress) {
+        return run(propagator, s, 0, s.count(), threads, progress);
+    }
+
+    /**
+     * Runs samples {@code first} (inclusive) to {@code end} (exclusive) of the run, in index order: sample i is the
+     * same as in a run of every sample (its generator is seeded from the seed and i), so a run split into index
+     * ranges gives the same landings (a shard of a Slurm job array, docs/cluster.md).
+     *
+     * @param threads  worker threads (results do not depend on it)
+     * @param progress receives progress (thread-safe)
+     */
+    public static List<Landing> run(Propagator propagator, DeploymentSettings s, int first, int end, int threads,
+                                    ProgressListener progress) {
         if (propagator.settings().frame() != Frame.BODY) {
             throw new IllegalArgumentException("deployments run in the body frame");
         }
-        Landing[] out = new Landing[s.count()];
+        if (first < 0 || end > s.count() || first >= end) {
+            throw new IllegalArgumentException("sample range [" + first + ", " + end + ") outside [0, " + s.count()
+                + ")");
+        }
+        Landing[] out = new Landing[end - first];
         // One sample per chunk: samples are long, so balance them one by one.
         int per = ParallelChunks.CHUNK;
-        ParallelChunks.run(s.count() * per, threads, () -> null, (ctx, from, to) -> {
+        ParallelChunks.run(out.length * per, threads, () -> null, (ctx, from, to) -> {
             for (int i = (from + per - 1) / per; i * per < to; i++) {
-                out[i] = sample(propagator, s, i);
+                out[i] = sample(propagator, s, first + i);
             }
         }, progress);
         return List.of(out);
