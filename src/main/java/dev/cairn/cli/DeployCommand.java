@@ -144,25 +144,8 @@ public final class DeployCommand implements Callable<Integer> {
         + "shards) and write every output of a single run; landings.csv is byte-identical to a single run's.")
     List<Path> mergeShards;
 
-    @Option(names = "--slurm", paramLabel = "N", description = "Instead of computing, write a Slurm job array of N "
-        + "shards (1 to " + SlurmArray.MAX_TASKS + ") and a merge job that runs after all of them, in OUT.slurm/ "
-        + "beside --out; see docs/cluster.md.")
-    Integer slurm;
-
-    @Option(names = "--slurm-submit", description = "With --slurm: submit both jobs with sbatch and print their ids.")
-    boolean slurmSubmit;
-
-    @Option(names = "--slurm-cpus", paramLabel = "C", description = "With --slurm: CPUs per task (--cpus-per-task; "
-        + "also the --threads of each task unless --threads is given; default ${DEFAULT-VALUE}).")
-    int slurmCpus = 1;
-
-    @Option(names = "--slurm-sbatch", paramLabel = "FILE", description = "With --slurm: extra sbatch options for both "
-        + "scripts, one per line (e.g. --partition=short, --time=01:00:00).")
-    Path slurmSbatch;
-
-    @Option(names = "--slurm-sbatch-command", hidden = true, paramLabel = "PROGRAM", description = "The sbatch program "
-        + "(tests).")
-    String sbatchCommand = "sbatch";
+    @Mixin
+    SlurmOptions slurmJob = new SlurmOptions();
 
     @Spec
     picocli.CommandLine.Model.CommandSpec spec;
@@ -225,7 +208,7 @@ public final class DeployCommand implements Callable<Integer> {
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
         }
-        if (slurm != null) {
+        if (slurmJob.slurm != null) {
             return slurm(body, ds, err);
         }
         FieldModel field = TrajectoryCommand.field(body, table);
@@ -290,23 +273,23 @@ public final class DeployCommand implements Callable<Integer> {
         refuse(shard != null && mergeShards != null, "--shard: not with --merge-shards (merge the shards in a "
             + "separate run)");
         refuse(shard != null && views, "--views: not with --shard (give it to the merge)");
-        if (slurm == null) {
-            refuse(slurmSubmit || slurmSbatch != null || slurmCpus != 1,
+        if (slurmJob.slurm == null) {
+            refuse(slurmJob.slurmSubmit || slurmJob.slurmSbatch != null || slurmJob.slurmCpus != 1,
                 "--slurm-submit, --slurm-cpus and --slurm-sbatch go with --slurm N");
             return;
         }
         refuse(shard != null, "--slurm: not with --shard (each task of the array computes one shard)");
         refuse(mergeShards != null, "--slurm: not with --merge-shards (the array writes its own merge job)");
-        if (slurm < 1 || slurm > SlurmArray.MAX_TASKS) {
-            throw new InputException("--slurm: expected 1 to " + SlurmArray.MAX_TASKS + " array tasks, got " + slurm);
+        if (slurmJob.slurm < 1 || slurmJob.slurm > SlurmArray.MAX_TASKS) {
+            throw new InputException("--slurm: expected 1 to " + SlurmArray.MAX_TASKS + " array tasks, got " + slurmJob.slurm);
         }
-        if (slurm > count) {
-            throw new InputException("--slurm: " + slurm + " shards for " + count + " samples (--count); give at "
+        if (slurmJob.slurm > count) {
+            throw new InputException("--slurm: " + slurmJob.slurm + " shards for " + count + " samples (--count); give at "
                 + "most one shard per sample");
         }
-        if (slurmCpus < 1 || slurmCpus > SlurmArray.MAX_CPUS) {
+        if (slurmJob.slurmCpus < 1 || slurmJob.slurmCpus > SlurmArray.MAX_CPUS) {
             throw new InputException("--slurm-cpus: expected 1 to " + SlurmArray.MAX_CPUS + " CPUs per task, got "
-                + slurmCpus);
+                + slurmJob.slurmCpus);
         }
     }
 
@@ -323,9 +306,9 @@ public final class DeployCommand implements Callable<Integer> {
 
     /** --slurm N: writes (and with --slurm-submit submits) the job array and its merge job; computes nothing. */
     private int slurm(BodyModel body, DeploymentSettings ds, PrintWriter err) {
-        List<String> sbatchOptions = slurmSbatch != null ? SlurmArray.readOptions(slurmSbatch) : List.of();
+        List<String> sbatchOptions = slurmJob.slurmSbatch != null ? SlurmArray.readOptions(slurmJob.slurmSbatch) : List.of();
         picocli.CommandLine.ParseResult pr = spec.commandLine().getParseResult();
-        String taskThreads = String.valueOf(pr.hasMatchedOption("--threads") ? threads : slurmCpus);
+        String taskThreads = String.valueOf(pr.hasMatchedOption("--threads") ? threads : slurmJob.slurmCpus);
         List<String> args = new java.util.ArrayList<>(List.of("deploy",
             body.source().toAbsolutePath().normalize().toString()));
         for (picocli.CommandLine.Model.OptionSpec o : pr.matchedOptions()) {
@@ -352,23 +335,23 @@ public final class DeployCommand implements Callable<Integer> {
         if (views) {
             merge.add("--views");
         }
-        SlurmArray job = new SlurmArray(SlurmArray.Kind.DEPLOY, slurm, slurmCpus, SlurmArray.launcher(), args, merge,
+        SlurmArray job = new SlurmArray(SlurmArray.Kind.DEPLOY, slurmJob.slurm, slurmJob.slurmCpus, SlurmArray.launcher(), args, merge,
             out, sbatchOptions);
         job.write();
-        int[] first = dev.cairn.tables.TableJob.shardRange(ds.count(), 1, slurm);
+        int[] first = dev.cairn.tables.TableJob.shardRange(ds.count(), 1, slurmJob.slurm);
         err.printf(Locale.ROOT, "cairn: wrote %s and %s: %d task(s) x %d CPU(s), about %d of %d samples each; shards "
-            + "and logs go to %s%n", job.arrayScript().getFileName(), job.mergeScript().getFileName(), slurm,
-            slurmCpus, first[1] - first[0], ds.count(), job.dir());
+            + "and logs go to %s%n", job.arrayScript().getFileName(), job.mergeScript().getFileName(), slurmJob.slurm,
+            slurmJob.slurmCpus, first[1] - first[0], ds.count(), job.dir());
         PrintWriter outw = spec.commandLine().getOut();
-        if (!slurmSubmit) {
+        if (!slurmJob.slurmSubmit) {
             err.println("cairn: submit with: " + job.submitLine());
             err.flush();
             return 0;
         }
         err.flush();
-        SlurmArray.Submission sub = job.submit(sbatchCommand);
+        SlurmArray.Submission sub = job.submit(slurmJob.sbatchCommand);
         err.printf(Locale.ROOT, "cairn: submitted array job %s (%d tasks) and merge job %s (runs after all tasks "
-            + "succeed; writes %s)%n", sub.arrayJob(), slurm, sub.mergeJob(), out);
+            + "succeed; writes %s)%n", sub.arrayJob(), slurmJob.slurm, sub.mergeJob(), out);
         outw.println("array_job_id " + sub.arrayJob());
         outw.println("merge_job_id " + sub.mergeJob());
         outw.flush();

@@ -165,25 +165,8 @@ public final class TableCommand implements Callable<Integer> {
         + "study as fractions of the Brillouin radius (default ${DEFAULT-VALUE}).")
     double[] benchSpacings = {0.4, 0.2, 0.1};
 
-    @Option(names = "--slurm", paramLabel = "N", description = "Instead of computing, write a Slurm job array of N "
-        + "shards (1 to " + SlurmArray.MAX_TASKS + ") and a merge job that runs after all of them, in OUT.slurm/ "
-        + "(see docs/cluster.md).")
-    Integer slurm;
-
-    @Option(names = "--slurm-submit", description = "With --slurm: submit both jobs with sbatch and print their ids.")
-    boolean slurmSubmit;
-
-    @Option(names = "--slurm-cpus", paramLabel = "C", description = "With --slurm: CPUs per task (--cpus-per-task; "
-        + "also the --threads of each task unless given; default ${DEFAULT-VALUE}).")
-    int slurmCpus = 1;
-
-    @Option(names = "--slurm-sbatch", paramLabel = "FILE", description = "With --slurm: extra sbatch options for both "
-        + "scripts, one per line (e.g. --partition=NAME, --time=HH:MM:SS, --mem=8G).")
-    Path slurmSbatch;
-
-    @Option(names = "--slurm-sbatch-command", hidden = true, paramLabel = "PROGRAM", description = "The sbatch program "
-        + "(default ${DEFAULT-VALUE}).")
-    String sbatchCommand = "sbatch";
+    @Mixin
+    SlurmOptions slurmJob = new SlurmOptions();
 
     @Option(names = "--stop-after-chunks", hidden = true, paramLabel = "N", description = "Stop after N checkpoint "
         + "chunks as if interrupted (to try --resume; exit code 3).")
@@ -220,7 +203,7 @@ public final class TableCommand implements Callable<Integer> {
         for (String w : body.warnings()) {
             err.println("cairn: warning: " + w);
         }
-        if (slurm != null) {
+        if (slurmJob.slurm != null) {
             return slurm(body, err, outw);
         }
         FieldModel field = fieldChoice.build(body, Long.MAX_VALUE, threads, err);
@@ -294,20 +277,20 @@ public final class TableCommand implements Callable<Integer> {
 
     /** Refuses --slurm with options it cannot go with, and --slurm-* without --slurm (before the model is loaded). */
     private void checkSlurmOptions() {
-        if (slurm == null) {
-            refuse(slurmSubmit || slurmSbatch != null || slurmCpus != 1,
+        if (slurmJob.slurm == null) {
+            refuse(slurmJob.slurmSubmit || slurmJob.slurmSbatch != null || slurmJob.slurmCpus != 1,
                 "--slurm-submit, --slurm-cpus and --slurm-sbatch go with --slurm N");
             return;
         }
         refuse(bench, "--slurm: not with --bench");
         refuse(shard != null, "--slurm: not with --shard (each task of the array computes one shard)");
         refuse(gridKind == null, "--slurm: give the grid (--grid ...)");
-        if (slurm < 1 || slurm > SlurmArray.MAX_TASKS) {
-            throw new InputException("--slurm: expected 1 to " + SlurmArray.MAX_TASKS + " array tasks, got " + slurm);
+        if (slurmJob.slurm < 1 || slurmJob.slurm > SlurmArray.MAX_TASKS) {
+            throw new InputException("--slurm: expected 1 to " + SlurmArray.MAX_TASKS + " array tasks, got " + slurmJob.slurm);
         }
-        if (slurmCpus < 1 || slurmCpus > SlurmArray.MAX_CPUS) {
+        if (slurmJob.slurmCpus < 1 || slurmJob.slurmCpus > SlurmArray.MAX_CPUS) {
             throw new InputException("--slurm-cpus: expected 1 to " + SlurmArray.MAX_CPUS + " CPUs per task, got "
-                + slurmCpus);
+                + slurmJob.slurmCpus);
         }
         if (out == null) {
             throw new InputException("--out: missing output file");
@@ -330,8 +313,8 @@ public final class TableCommand implements Callable<Integer> {
             throw new InputException("--grid " + gridKind + ": " + grid.nodeCount() + " nodes is more than the limit of "
                 + maxNodes + "; use --force (or raise --max-nodes) if you mean it");
         }
-        if (slurm > grid.nodeCount()) {
-            throw new InputException("--slurm: " + slurm + " shards for a grid of " + grid.nodeCount() + " nodes; "
+        if (slurmJob.slurm > grid.nodeCount()) {
+            throw new InputException("--slurm: " + slurmJob.slurm + " shards for a grid of " + grid.nodeCount() + " nodes; "
                 + "give at most one shard per node");
         }
         String fmt = format != null ? format.toLowerCase(Locale.ROOT) : TableFiles.formatOf(out);
@@ -340,9 +323,9 @@ public final class TableCommand implements Callable<Integer> {
         }
         dev.cairn.io.RunInputs.requireWritable(out.toAbsolutePath());
         dev.cairn.io.RunInputs.requireWritable(TableFiles.sidecarPath(out).toAbsolutePath());
-        List<String> sbatchOptions = slurmSbatch != null ? SlurmArray.readOptions(slurmSbatch) : List.of();
+        List<String> sbatchOptions = slurmJob.slurmSbatch != null ? SlurmArray.readOptions(slurmJob.slurmSbatch) : List.of();
         picocli.CommandLine.ParseResult pr = spec.commandLine().getParseResult();
-        String taskThreads = String.valueOf(pr.hasMatchedOption("--threads") ? threads : slurmCpus);
+        String taskThreads = String.valueOf(pr.hasMatchedOption("--threads") ? threads : slurmJob.slurmCpus);
         List<String> args = new ArrayList<>(List.of("table", body.source().toAbsolutePath().normalize().toString()));
         for (picocli.CommandLine.Model.OptionSpec o : pr.matchedOptions()) {
             if (NOT_PASSED.contains(o.longestName())) {
@@ -369,21 +352,21 @@ public final class TableCommand implements Callable<Integer> {
             merge.addAll(List.of("--check-samples", String.valueOf(checkSamples)));
         }
         merge.addAll(List.of("--check-cell-points", String.valueOf(checkCellPoints), "--seed", String.valueOf(seed)));
-        SlurmArray job = new SlurmArray(slurm, slurmCpus, SlurmArray.launcher(), args, merge, out, sbatchOptions);
+        SlurmArray job = new SlurmArray(slurmJob.slurm, slurmJob.slurmCpus, SlurmArray.launcher(), args, merge, out, sbatchOptions);
         job.write();
-        int[] first = TableJob.shardRange((int) grid.nodeCount(), 1, slurm);
+        int[] first = TableJob.shardRange((int) grid.nodeCount(), 1, slurmJob.slurm);
         err.printf(Locale.ROOT, "cairn: wrote %s and %s: %d task(s) x %d CPU(s), about %d of %d nodes each; shards, "
-            + "logs and checkpoints go to %s%n", job.arrayScript().getFileName(), job.mergeScript().getFileName(), slurm,
-            slurmCpus, first[1] - first[0], grid.nodeCount(), job.dir());
-        if (!slurmSubmit) {
+            + "logs and checkpoints go to %s%n", job.arrayScript().getFileName(), job.mergeScript().getFileName(), slurmJob.slurm,
+            slurmJob.slurmCpus, first[1] - first[0], grid.nodeCount(), job.dir());
+        if (!slurmJob.slurmSubmit) {
             err.println("cairn: submit with: " + job.submitLine());
             err.flush();
             return 0;
         }
         err.flush();
-        SlurmArray.Submission s = job.submit(sbatchCommand);
+        SlurmArray.Submission s = job.submit(slurmJob.sbatchCommand);
         err.printf(Locale.ROOT, "cairn: submitted array job %s (%d tasks) and merge job %s (runs after all tasks "
-            + "succeed; writes %s)%n", s.arrayJob(), slurm, s.mergeJob(), out);
+            + "succeed; writes %s)%n", s.arrayJob(), slurmJob.slurm, s.mergeJob(), out);
         outw.println("array_job_id " + s.arrayJob());
         outw.println("merge_job_id " + s.mergeJob());
         outw.flush();
