@@ -80,8 +80,10 @@ public final class HarmonicsCommand implements Callable<Integer> {
             throw new InputException("--degree " + degree + " is above the largest supported degree "
                 + HarmonicCoefficients.MAX_DEGREE + " (the exact triangle rule's limit)");
         }
-        if (referenceRadius != null && !(referenceRadius > 0 && Double.isFinite(referenceRadius))) {
-            throw new InputException("--reference-radius must be positive and finite, got " + referenceRadius);
+        if (referenceRadius != null && !(referenceRadius >= HarmonicCoefficients.MIN_RADIUS_M
+            && referenceRadius <= HarmonicCoefficients.MAX_RADIUS_M)) {
+            throw new InputException("--reference-radius must be between " + HarmonicCoefficients.MIN_RADIUS_M
+                + " and " + HarmonicCoefficients.MAX_RADIUS_M + " m, got " + referenceRadius);
         }
         String o = origin.toLowerCase(Locale.ROOT);
         if (!o.equals("com") && !o.equals("model")) {

@@ -30,6 +30,20 @@ import java.util.List;
 public final class HarmonicCoefficients {
     /** Largest degree: the exact triangle rule ({@link TriangleQuadrature}) reaches degree 60. */
     public static final int MAX_DEGREE = 60;
+    /**
+     * Accepted reference and Brillouin radii, metres: a millimetre to the program's largest point coordinate
+     * ({@link dev.cairn.io.Numbers#MAX_POINT_M}); GM/(G R³) and R^n stay in range for every degree there (common
+     * practice, no source).
+     */
+    public static final double MIN_RADIUS_M = 1e-3;
+    public static final double MAX_RADIUS_M = 1e15;
+    /** Largest accepted GM, m³/s²: about 1e5 solar GMs, far above any body this program models (no source). */
+    public static final double MAX_GM = 1e25;
+    /**
+     * Largest accepted |C̄nm|, |S̄nm| in a file: about √2 when the reference radius holds all mass, growing as
+     * (R_B/R)^n for a smaller one; 1e30 leaves room for that and keeps the series finite (no source).
+     */
+    public static final double MAX_COEFFICIENT = 1e30;
 
     private final double gm;
     private final double referenceRadius;

@@ -17,8 +17,9 @@ import java.util.concurrent.atomic.LongAdder;
  * <p>Validity: the series converges outside the Brillouin sphere (radius {@link HarmonicCoefficients#brillouinRadius()}
  * about the origin; the reference radius when that is unknown) and generically diverges inside it (shared
  * references §5). Points inside are still evaluated (the truncated sum is finite) but counted
- * ({@link #insideCount()}), given location {@code unknown} and Laplacian NaN; outside, the Laplacian is 0 and the
- * location {@code outside}. The counter is diagnostic only and never changes a result.
+ * ({@link #insideCount()}) and given location {@code unknown}; the Laplacian is 0 everywhere (each term of the
+ * truncated series is harmonic) and the location {@code outside} outside the sphere. The counter is diagnostic
+ * only and never changes a result.
  */
 public final class HarmonicField implements FieldModel {
     private final HarmonicCoefficients coefficients;
@@ -111,8 +112,7 @@ public final class HarmonicField implements FieldModel {
             expansion.evaluate(x, y, z, gradient, out, off, jr, ji);
             if (r2 < convergence2) {
                 inside.increment();
-                out[off + FieldSample.LAPLACIAN] = Double.NaN;
-                out[off + FieldSample.LOCATION] = Location.UNKNOWN.code();
+                out[off + FieldSample.LOCATION] = Location.UNKNOWN.code(); // Laplacian stays 0: each term is harmonic
             }
         };
     }

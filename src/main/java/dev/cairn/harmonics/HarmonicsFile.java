@@ -139,19 +139,14 @@ public final class HarmonicsFile {
             throw InputException.at(f, 0, "not a JSON object of coefficients (docs/harmonics.md)");
         }
         double gm = number(root, "gm_m3_s2", f);
-        if (!(gm > 0)) {
-            throw InputException.at(f, 0, "key 'gm_m3_s2': must be positive, got " + gm);
+        if (!(gm > 0 && gm <= HarmonicCoefficients.MAX_GM)) {
+            throw InputException.at(f, 0, "key 'gm_m3_s2': must be positive and at most " + HarmonicCoefficients.MAX_GM
+                + " m^3/s^2, got " + gm);
         }
-        double ref = number(root, "reference_radius_m", f);
-        if (!(ref > 0)) {
-            throw InputException.at(f, 0, "key 'reference_radius_m': must be positive, got " + ref);
-        }
+        double ref = radius(root, "reference_radius_m", f);
         double rb = Double.NaN;
         if (root.has("brillouin_radius_m") && !root.get("brillouin_radius_m").isNull()) {
-            rb = number(root, "brillouin_radius_m", f);
-            if (!(rb > 0)) {
-                throw InputException.at(f, 0, "key 'brillouin_radius_m': must be positive, got " + rb);
-            }
+            rb = radius(root, "brillouin_radius_m", f);
         }
         JsonNode o = root.get("origin_m");
         if (o == null || !o.isArray() || o.size() != 3) {
@@ -159,8 +154,10 @@ public final class HarmonicsFile {
         }
         double[] origin = new double[3];
         for (int i = 0; i < 3; i++) {
-            if (!o.get(i).isNumber() || !Double.isFinite(o.get(i).asDouble())) {
-                throw InputException.at(f, 0, "key 'origin_m': element " + i + " is not a finite number");
+            if (!o.get(i).isNumber() || !Double.isFinite(o.get(i).asDouble())
+                || Math.abs(o.get(i).asDouble()) > dev.cairn.io.Numbers.MAX_POINT_M) {
+                throw InputException.at(f, 0, "key 'origin_m': element " + i + " is not a finite number within "
+                    + dev.cairn.io.Numbers.MAX_POINT_M + " m");
             }
             origin[i] = o.get(i).asDouble();
         }
@@ -192,6 +189,16 @@ public final class HarmonicsFile {
         return new HarmonicCoefficients(gm, ref, rb, origin, c, s, bound);
     }
 
+    /** A radius key within [{@link HarmonicCoefficients#MIN_RADIUS_M}, {@link HarmonicCoefficients#MAX_RADIUS_M}]. */
+    private static double radius(JsonNode root, String key, String f) {
+        double r = number(root, key, f);
+        if (!(r >= HarmonicCoefficients.MIN_RADIUS_M && r <= HarmonicCoefficients.MAX_RADIUS_M)) {
+            throw InputException.at(f, 0, "key '" + key + "': must be between " + HarmonicCoefficients.MIN_RADIUS_M
+                + " and " + HarmonicCoefficients.MAX_RADIUS_M + " m, got " + r);
+        }
+        return r;
+    }
+
     private static double number(JsonNode root, String key, String f) {
         JsonNode v = root.get(key);
         if (v == null || !v.isNumber()) {
@@ -219,8 +226,10 @@ public final class HarmonicsFile {
             double[] r = new double[n + 1];
             for (int m = 0; m <= n; m++) {
                 JsonNode v = row.get(m);
-                if (!v.isNumber() || !Double.isFinite(v.asDouble())) {
-                    throw InputException.at(f, 0, "key '" + key + "': [" + n + "][" + m + "] is not a finite number");
+                if (!v.isNumber() || !Double.isFinite(v.asDouble())
+                    || Math.abs(v.asDouble()) > HarmonicCoefficients.MAX_COEFFICIENT) {
+                    throw InputException.at(f, 0, "key '" + key + "': [" + n + "][" + m + "] is not a finite number "
+                        + "of at most " + HarmonicCoefficients.MAX_COEFFICIENT + " in size");
                 }
                 r[m] = v.asDouble();
             }

@@ -18,7 +18,7 @@ import java.util.List;
  * {@code landings.csv}) only rows whose outcome is {@code rest} are markers. Every value is checked (finite, within
  * {@link Numbers#MAX_POINT_M}); at most {@link #MAX_MARKERS} markers.
  */
-final class MarkerPoints {
+public final class MarkerPoints {
     /** Most markers drawn (each is a small sphere in the scene). */
     static final int MAX_MARKERS = 100_000;
 
@@ -26,7 +26,7 @@ final class MarkerPoints {
     }
 
     /** The x, y, z triples of {@code file}; one-line errors name the file and line. */
-    static double[] read(Path file) {
+    public static double[] read(Path file) {
         InputFiles.requireRegularFile(file, "markers file");
         String f = Messages.path(file);
         try (BufferedReader r = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {

@@ -41,6 +41,8 @@ class HarmonicsCommandTest {
                 "-3"},
             new String[] {"harmonics", box.toString(), "--density", "2000", "--degree", "4", "--reference-radius",
                 "NaN"},
+            new String[] {"harmonics", box.toString(), "--density", "2000", "--degree", "4", "--reference-radius",
+                "1e-150"}, // GM/(G R^3) would overflow: refused (found by the fuzz campaign)
             new String[] {"harmonics", box.toString(), "--density", "2000", "--degree", "4", "--origin", "middle"},
             new String[] {"harmonics", box.toString(), "--density", "2000"});
         for (String[] args : cases) {
@@ -65,6 +67,13 @@ class HarmonicsCommandTest {
             assertEquals(2, r.exit(), String.join(" ", args) + ": " + r.err());
             assertTrue(r.oneLineError(), r.err());
         }
+        Path tinyRef = dir.resolve("tiny.json");
+        Files.writeString(tinyRef, "{\"gm_m3_s2\": 1, \"reference_radius_m\": 1e-150, \"origin_m\": [0,0,0], "
+            + "\"degree\": 0, \"c\": [[1]], \"s\": [[0]]}");
+        CliRun tiny = CliRun.of("field", box.toString(), "--density", "2000", "--points", points.toString(),
+            "--model", "harmonics", "--coefficients", tinyRef.toString());
+        assertEquals(2, tiny.exit(), tiny.err());
+        assertTrue(tiny.oneLineError() && tiny.err().contains("reference_radius_m"), tiny.err());
         CliRun r = CliRun.of("field", box.toString(), "--density", "2000", "--points", points.toString(), "--model",
             "harmonics", "--coefficients", badCoeff.toString());
         assertTrue(r.err().contains("bad.json") && r.err().contains("reference_radius_m"), r.err());

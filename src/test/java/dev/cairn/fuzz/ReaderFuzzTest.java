@@ -565,6 +565,98 @@ class ReaderFuzzTest {
      * as {@code #SBATCH} lines that carry no control character, come before the first command and never set what
      * the scripts set themselves (array, dependency, output).
      */
+    /** {@code render --markers}: hostile marker CSVs are refused in one line or give finite points only. */
+    @Test
+    void markerPointsReader() {
+        Stats st = new Stats("render-markers");
+        Mutator m = new Mutator(SEED + 11);
+        byte[] base = "sample,outcome,x_m,y_m,z_m\n1,rest,100,-20,300\n2,escaped,9,9,9\n# c\n3,rest,-4,5e2,6\n"
+            .getBytes(StandardCharsets.UTF_8);
+        String[] hostile = {"1e400,rest,1,2,3", "4,rest,NaN,0,0", "5,rest,-Infinity,0,0", "6,rest,0x1p3,0,0",
+            "7,rest,1,2", "rest", ",,,,", "\uFEFFx_m,y_m,z_m", "8,rest,1e16,0,0", "x_m,x_m,y_m,z_m,outcome"};
+        int n = cases(200);
+        for (int i = 0; i < n; i++) {
+            Path f = write(dir.resolve("markers.csv"), m.mutateText(base, hostile));
+            direct(st, "markers " + f, () -> {
+                for (double d : dev.cairn.viewer.MarkerPoints.read(f)) {
+                    if (!Double.isFinite(d) || Math.abs(d) > dev.cairn.io.Numbers.MAX_POINT_M) {
+                        throw new IllegalStateException("marker coordinate " + d + " accepted");
+                    }
+                }
+            });
+        }
+        st.finish();
+    }
+
+    /**
+     * Coefficient files ({@code --coefficients}, with the truncation_bound key) read by {@code field} and
+     * {@code table}: one-line refusal or finite output.
+     */
+    @Test
+    void coefficientFileReader() throws IOException {
+        Stats st = new Stats("coefficients");
+        Mutator m = new Mutator(SEED + 12);
+        Path obj = write(dir.resolve("box.obj"), BOX_OBJ);
+        Path pts = write(dir.resolve("pts.csv"), POINTS);
+        Path good = dir.resolve("good.json");
+        requireOk(cli(new Stats("coefficients-fixture"), "harmonics", obj.toString(), "--density", "2000",
+            "--degree", "4", "--out", good.toString()));
+        byte[] base = Files.readAllBytes(good);
+        int n = cases(160);
+        for (int i = 0; i < n; i++) {
+            Path f = write(dir.resolve("c.json"), m.mutateJson(base));
+            if (i % 4 == 3) {
+                cli(st, "table", obj.toString(), "--density", "2000", "--grid", "points", "--points", pts.toString(),
+                    "--model", "harmonics", "--coefficients", f.toString(), "--out",
+                    dir.resolve("t.csv").toString(), "--threads", "1");
+            } else {
+                noNanText(st, cli(st, "field", obj.toString(), "--density", "2000", "--points", pts.toString(),
+                    "--model", "harmonics", "--coefficients", f.toString(), "--threads", "1"), "field " + f);
+            }
+        }
+        st.finish();
+    }
+
+    /**
+     * {@code deploy --merge-shards}: a shard's landings.csv and shard.json damaged; the merge refuses in one line
+     * (never a silently different merge: a merge that succeeds must reproduce the undamaged one byte for byte).
+     */
+    @Test
+    void deployShardMerge() throws IOException {
+        Stats st = new Stats("deploy-shards");
+        Mutator m = new Mutator(SEED + 13);
+        Path obj = write(dir.resolve("box.obj"), BOX_OBJ);
+        String[] common = {"deploy", obj.toString(), "--density", "2000", "--spin-period", "6h", "--release",
+            "0,0,900", "--velocity", "0,0,-0.05", "--count", "4", "--position-sigma", "5", "--seed", "3",
+            "--threads", "1"};
+        Stats fixture = new Stats("deploy-shards-fixture");
+        for (int k = 1; k <= 2; k++) {
+            requireOk(cli(fixture, concat(common, "--shard", k + "/2", "--out", dir.resolve("s" + k).toString())));
+        }
+        String shards = dir.resolve("s1") + "," + dir.resolve("s2");
+        requireOk(cli(fixture, concat(common, "--merge-shards", shards, "--out", dir.resolve("ref").toString())));
+        byte[] ref = Files.readAllBytes(dir.resolve("ref").resolve("landings.csv"));
+        byte[] csv = Files.readAllBytes(dir.resolve("s2").resolve("landings.csv"));
+        byte[] json = Files.readAllBytes(dir.resolve("s2").resolve("shard.json"));
+        String[] hostile = {"3,rest,1e400,0,0", "NaN", "2,rest", ",,,,,,,,,,,,,,,,,,,,,", "sample,outcome",
+            "\uFEFFsample"};
+        int n = cases(80);
+        for (int i = 0; i < n; i++) {
+            boolean damageCsv = i % 3 != 2;
+            write(dir.resolve("s2").resolve("landings.csv"), damageCsv ? m.mutateText(csv, hostile) : csv);
+            write(dir.resolve("s2").resolve("shard.json"), damageCsv ? json : m.mutateJson(json));
+            Path out = dir.resolve("merged");
+            deleteTree(out);
+            Outcome o = cli(st, concat(common, "--merge-shards", shards, "--out", out.toString()));
+            if (o != null && o.exit == 0 && !java.util.Arrays.equals(ref,
+                Files.readAllBytes(out.resolve("landings.csv")))) {
+                st.wrong++;
+                st.example("merged differently", o.err.strip());
+            }
+        }
+        st.finish();
+    }
+
     @Test
     void slurmOptionsFile() {
         Stats st = new Stats("slurm-options");
