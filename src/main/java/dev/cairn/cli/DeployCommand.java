@@ -311,25 +311,7 @@ public final class DeployCommand implements Callable<Integer> {
         String taskThreads = String.valueOf(pr.hasMatchedOption("--threads") ? threads : slurmJob.slurmCpus);
         List<String> args = new java.util.ArrayList<>(List.of("deploy",
             body.source().toAbsolutePath().normalize().toString()));
-        for (picocli.CommandLine.Model.OptionSpec o : pr.matchedOptions()) {
-            if (NOT_PASSED.contains(o.longestName())) {
-                continue;
-            }
-            if (o.arity().max() == 0) {
-                boolean on = Boolean.TRUE.equals(o.getValue());
-                if (o.negatable()) {
-                    args.add(on ? o.longestName() : o.longestName().replaceFirst("^--", "--no-"));
-                } else if (on) {
-                    args.add(o.longestName());
-                }
-                continue;
-            }
-            for (String v : o.originalStringValues()) {
-                // NAME=VALUE, one word: a value that starts with '-' (a negative coordinate) is no option
-                args.add(o.longestName() + "=" + (o.type() == Path.class
-                    ? Path.of(v).toAbsolutePath().normalize().toString() : v));
-            }
-        }
+        args.addAll(ForwardedArguments.of(pr, o -> !NOT_PASSED.contains(o.longestName())));
         args.addAll(List.of("--threads", taskThreads));
         List<String> merge = new java.util.ArrayList<>(args);
         if (views) {
@@ -375,22 +357,7 @@ public final class DeployCommand implements Callable<Integer> {
             : pr.matchedPositionals().get(0).originalStringValues()) {
             args.add(p);
         }
-        for (picocli.CommandLine.Model.OptionSpec o : pr.matchedOptions()) {
-            if (!(o.userObject() instanceof java.lang.reflect.Field f)) {
-                continue;
-            }
-            Class<?> c = f.getDeclaringClass();
-            if (c != ModelOptions.class && c != SpinOptions.class && c.getEnclosingClass() != ModelOptions.class) {
-                continue;
-            }
-            if (o.arity().max() == 0) {
-                args.add(o.longestName());
-            } else {
-                for (String v : o.originalStringValues()) {
-                    args.add(o.longestName() + "=" + v);
-                }
-            }
-        }
+        args.addAll(ForwardedArguments.of(pr, ForwardedArguments::modelOrSpin));
         args.addAll(java.util.List.of("--quantity", "slope", "--view", "iso", "--markers",
             out.resolve("landings.csv").toString(), "--out", png.toString()));
         java.io.StringWriter renderErr = new java.io.StringWriter();

@@ -327,25 +327,7 @@ public final class TableCommand implements Callable<Integer> {
         picocli.CommandLine.ParseResult pr = spec.commandLine().getParseResult();
         String taskThreads = String.valueOf(pr.hasMatchedOption("--threads") ? threads : slurmJob.slurmCpus);
         List<String> args = new ArrayList<>(List.of("table", body.source().toAbsolutePath().normalize().toString()));
-        for (picocli.CommandLine.Model.OptionSpec o : pr.matchedOptions()) {
-            if (NOT_PASSED.contains(o.longestName())) {
-                continue;
-            }
-            if (o.arity().max() == 0) {
-                boolean on = Boolean.TRUE.equals(o.getValue());
-                if (o.negatable()) {
-                    args.add(on ? o.longestName() : o.longestName().replaceFirst("^--", "--no-"));
-                } else if (on) {
-                    args.add(o.longestName());
-                }
-                continue;
-            }
-            for (String v : o.originalStringValues()) {
-                // NAME=VALUE, one word: a value that starts with '-' (a box bound) cannot be taken for an option
-                args.add(o.longestName() + "=" + (o.type() == Path.class
-                    ? Path.of(v).toAbsolutePath().normalize().toString() : v));
-            }
-        }
+        args.addAll(ForwardedArguments.of(pr, o -> !NOT_PASSED.contains(o.longestName())));
         args.addAll(List.of("--format", fmt, "--threads", taskThreads));
         List<String> merge = new ArrayList<>(List.of("--format", fmt, "--threads", taskThreads));
         if (checkSamples != null) {
